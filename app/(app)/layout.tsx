@@ -1,0 +1,15 @@
+import { redirect } from 'next/navigation';
+import type { ReactNode } from 'react';
+import { TopBar } from '@/components/shell/top-bar';
+import { getSignedInUser } from '@/lib/data/membership';
+
+export default async function AppLayout({ children }: { children: ReactNode }) {
+  const user = await getSignedInUser();
+  if (!user) redirect('/sign-in');
+  return (
+    <div className="min-h-screen">
+      <TopBar userName={user.name} isAdmin={user.isAdmin} />
+      {children}
+    </div>
+  );
+}
