@@ -1,5 +1,6 @@
 import { redirect } from 'next/navigation';
 import type { ReactNode } from 'react';
+import { QueryProvider } from '@/components/providers/query-provider';
 import { TopBar } from '@/components/shell/top-bar';
 import { getSignedInUser } from '@/lib/data/membership';
 
@@ -9,7 +10,7 @@ export default async function AppLayout({ children }: { children: ReactNode }) {
   return (
     <div className="min-h-screen">
       <TopBar userName={user.name} isAdmin={user.isAdmin} />
-      {children}
+      <QueryProvider>{children}</QueryProvider>
     </div>
   );
 }

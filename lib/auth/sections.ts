@@ -9,6 +9,8 @@ export interface ProjectSection {
 
 export const PROJECT_SECTIONS: ProjectSection[] = [
   { slug: '', label: 'Overview', capability: 'project:read' },
+  { slug: 'cabinets', label: 'Schedule', capability: 'schedule:read' },
+  { slug: 'guards', label: 'Guard recipes', capability: 'schedule:read' },
   { slug: 'settings', label: 'Assumptions', capability: 'project:read' },
 ];
 
