@@ -3,8 +3,9 @@
  * navigation (which only hides what the server would refuse anyway).
  */
 
-export const PROJECT_ROLES = ['engineer', 'technician', 'reviewer', 'viewer'] as const;
-export type ProjectRole = (typeof PROJECT_ROLES)[number];
+import { PROJECT_ROLES, type ProjectRole } from '@/models/enums';
+
+export { PROJECT_ROLES, type ProjectRole };
 
 /** The acting person's standing on one project: their project role, and whether they are a global admin. */
 export interface ProjectStanding {
