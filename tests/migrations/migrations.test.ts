@@ -1,4 +1,4 @@
-import { QueryTypes, type QueryInterface } from 'sequelize';
+import { QueryTypes, type Model, type ModelStatic, type QueryInterface } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { MIGRATION_TABLE, migrationStatus, revertMigrations, runMigrations } from '@/lib/db-migrate';
 import { MIGRATIONS } from '@/migrations';
@@ -33,7 +33,7 @@ describe('migrations', () => {
   });
 
   it('create a table with a column for every model attribute, nullability matching', async () => {
-    for (const model of Object.values(db.models)) {
+    for (const model of Object.values(db.models) as ModelStatic<Model>[]) {
       const columns = await qi.describeTable(model.getTableName() as string);
       for (const [name, attribute] of Object.entries(model.getAttributes())) {
         const column = columns[attribute.field ?? name];
