@@ -139,17 +139,17 @@ export function checkWireColours(
   convention: WireColourConvention,
 ): CheckFinding[] {
   if (convention === 'none') return [];
-  const stripName = new Map(strips.map((s) => [s.id, s.name]));
+  const stripName = new Map(strips.map((s) => [s.id, s.tag]));
   const out: CheckFinding[] = [];
   const sorted = [...terminals].sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
   for (const t of sorted) {
     if (t.wireColour === null || t.wireColour === undefined || t.wireColour.trim() === '') continue;
     const strip = stripName.get(t.stripId) ?? t.stripId;
-    const key = `wire-colour|${strip}|${t.label}`;
+    const key = `colour|${strip}|${t.label}`;
     const colour = parseWireColour(t.wireColour);
     if (colour === null) {
       out.push({
-        kind: 'wire-colour', key, severity: 'advisory', stripId: t.stripId, terminalIds: [t.id],
+        kind: 'colour', key, severity: 'advisory', stripId: t.stripId, terminalIds: [t.id],
         clause: 'IEC 60757 colour codes (memory)',
         message: `${t.label}: wire colour "${t.wireColour}" is not a colour the check understands`,
       });
@@ -158,7 +158,7 @@ export function checkWireColours(
     const reserved = reservedColourMisuse(t, colour, convention);
     if (reserved) {
       out.push({
-        kind: 'wire-colour', key, severity: reserved.severity, stripId: t.stripId, terminalIds: [t.id],
+        kind: 'colour', key, severity: reserved.severity, stripId: t.stripId, terminalIds: [t.id],
         clause: reserved.clause,
         message: `${t.label} (${t.circuitClass}) is ${colour}: that colour is reserved for the ${reserved.circuit}`,
       });
@@ -167,7 +167,7 @@ export function checkWireColours(
     const rule = colourRuleFor(t, convention);
     if (!rule || rule.allowed.includes(colour)) continue;
     out.push({
-      kind: 'wire-colour', key, severity: rule.severity, stripId: t.stripId, terminalIds: [t.id],
+      kind: 'colour', key, severity: rule.severity, stripId: t.stripId, terminalIds: [t.id],
       clause: rule.clause,
       message: `${t.label} (${rule.circuit}) is ${colour}; ${rule.clause} calls for ${rule.allowed.join(' or ')}`,
     });

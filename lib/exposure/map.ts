@@ -36,7 +36,7 @@ const MECHANISM_ORDER: Readonly<Record<Mechanism, number>> = {
   neighbour: 0,
   stacked: 1,
   bridge: 2,
-  cable: 3,
+  'same-cable': 3,
   'look-alike': 4,
 };
 
@@ -94,7 +94,7 @@ export function buildWiringIndex(w: WiringSnapshot): WiringIndex {
   const stripName = new Map<string, string>();
   const cabinetOfStrip = new Map<string, string>();
   for (const s of w.strips) {
-    stripName.set(s.id, s.name);
+    stripName.set(s.id, s.tag);
     cabinetOfStrip.set(s.id, s.cabinetId);
   }
   const idx: WiringIndex = {
@@ -143,8 +143,8 @@ const MECHANISM_OF_ROUTE: Readonly<Record<ExposureRoute, Mechanism>> = {
   adjacent: 'neighbour',
   near: 'neighbour',
   'other-level': 'stacked',
-  'cable-core': 'cable',
-  'connector-pin': 'cable',
+  'cable-core': 'same-cable',
+  'connector-pin': 'same-cable',
   'terminal-number': 'look-alike',
   'wire-number-same': 'look-alike',
   'wire-number-similar': 'look-alike',

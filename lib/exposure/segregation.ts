@@ -57,12 +57,12 @@ export function checkSegregation(strips: readonly StripSnapshot[], terminals: re
         const [lv, elv] = band === 'lv' ? [t, last.t] : [last.t, t];
         out.push({
           kind: 'segregation',
-          key: `segregation|${strip.name}|${last.t.label}|${t.label}`,
+          key: `segregation|${strip.tag}|${last.t.label}|${t.label}`,
           severity: 'violation',
           stripId: strip.id,
           terminalIds: [last.t.id, t.id],
           clause: SEGREGATION_CLAUSE,
-          message: `Strip ${strip.name}: low-voltage ${lv.label} and extra-low-voltage ${elv.label} meet with no barrier between the groups`,
+          message: `Strip ${strip.tag}: low-voltage ${lv.label} and extra-low-voltage ${elv.label} meet with no barrier between the groups`,
         });
       }
       last = { t, band };

@@ -18,13 +18,13 @@ export type CurrentKind = 'ac' | 'dc';
 
 export interface CabinetSnapshot {
   id: string;
-  name: string;
+  tag: string;
 }
 
 export interface StripSnapshot {
   id: string;
   cabinetId: string;
-  name: string;
+  tag: string;
 }
 
 /** One terminal of the schedule. Optional facts may be absent or null; both mean "not given". */
@@ -92,12 +92,12 @@ export const DEFAULT_LIKELIHOOD_WEIGHTS: LikelihoodWeights = {
 
 // ---------------------------------------------------------------- exposures
 
-export type Mechanism = 'neighbour' | 'stacked' | 'cable' | 'look-alike' | 'bridge';
+export type Mechanism = 'neighbour' | 'stacked' | 'same-cable' | 'look-alike' | 'bridge';
 
 export const MECHANISMS: readonly Mechanism[] = [
   'neighbour',
   'stacked',
-  'cable',
+  'same-cable',
   'look-alike',
   'bridge',
 ];
@@ -151,7 +151,7 @@ export interface ExposureOptions {
 
 // ---------------------------------------------------------------- checks
 
-export type CheckKind = 'segregation' | 'wire-colour';
+export type CheckKind = 'segregation' | 'colour';
 
 export type CheckSeverity = 'violation' | 'advisory';
 

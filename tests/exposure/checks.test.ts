@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { checkSegregation, checkWireColours, parseWireColour, type StripSnapshot } from '@/lib/exposure';
 import { dcSupply, input, mainsLine, term } from './fixtures';
 
-const strips: StripSnapshot[] = [{ id: 'X1', cabinetId: 'C1', name: 'X1' }];
+const strips: StripSnapshot[] = [{ id: 'X1', cabinetId: 'C1', tag: 'X1' }];
 
 describe('segregation check', () => {
   // IEC 60204-1 13.1.3 (memory) and NEC 300.3(C)(1): circuits of different voltage may share

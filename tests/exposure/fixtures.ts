@@ -26,13 +26,13 @@ export function input(id: string, position: number, extra: Partial<TerminalSnaps
 /** One cabinet "Pump house MCC-2" with strips X1…X5 unless the test adds others. */
 export function wiring(terminals: TerminalSnapshot[], extra: Partial<WiringSnapshot> = {}): WiringSnapshot {
   return {
-    cabinets: [{ id: 'C1', name: 'MCC-2' }, { id: 'C2', name: 'RIO-7' }],
+    cabinets: [{ id: 'C1', tag: 'MCC-2' }, { id: 'C2', tag: 'RIO-7' }],
     strips: [
-      { id: 'X1', cabinetId: 'C1', name: 'X1' },
-      { id: 'X2', cabinetId: 'C1', name: 'X2' },
-      { id: 'X3', cabinetId: 'C1', name: 'X3' },
-      { id: 'X4', cabinetId: 'C1', name: 'X4' },
-      { id: 'X5', cabinetId: 'C2', name: 'X5' },
+      { id: 'X1', cabinetId: 'C1', tag: 'X1' },
+      { id: 'X2', cabinetId: 'C1', tag: 'X2' },
+      { id: 'X3', cabinetId: 'C1', tag: 'X3' },
+      { id: 'X4', cabinetId: 'C1', tag: 'X4' },
+      { id: 'X5', cabinetId: 'C2', tag: 'X5' },
     ],
     terminals,
     channels: [],
