@@ -63,9 +63,9 @@ interface RouteSpec<P extends z.ZodType, B extends z.ZodType, Q extends z.ZodTyp
  * JSON unless it is already a Response.
  */
 export function projectRoute<
-  P extends z.ZodType = z.ZodObject<{}>,
+  P extends z.ZodType = z.ZodType<Record<string, unknown>>,
   B extends z.ZodType = z.ZodUnknown,
-  Q extends z.ZodType = z.ZodObject<{}>,
+  Q extends z.ZodType = z.ZodType<Record<string, unknown>>,
 >(
   spec: RouteSpec<P, B, Q>,
   handler: (input: {
