@@ -75,6 +75,10 @@ export interface RailDiodesElement {
   surgeCurrent?: number;
   /** Pulse width at which surgeCurrent applies (s); default 8.3 ms half-sine. */
   surgeDuration?: number;
+  /** Junction ideality for the model (default 2; see lib/stress/junction.ts). */
+  emissionCoefficient?: number;
+  /** Bulk series resistance for the model (default 5 % of forwardVoltage / forwardCurrent). */
+  seriesResistance?: number;
 }
 
 export interface ZenerElement {
@@ -86,6 +90,9 @@ export interface ZenerElement {
   testCurrent?: number;
   dynamicImpedance: number;
   powerRating?: number;
+  /** Forward drop at a current (default 1.0 V at 100 mA, a typical small zener). */
+  forwardVoltage?: number;
+  forwardCurrent?: number;
 }
 
 export interface TvsElement {
@@ -99,6 +106,13 @@ export interface TvsElement {
   peakPulseCurrent: number;
   /** Peak pulse power on 10/1000 µs; defaults to clampVoltage × peakPulseCurrent. */
   peakPulsePower?: number;
+  /** Current at which breakdownVoltage is specified (default 1 mA). */
+  testCurrent?: number;
+  /** Steady-state power dissipation rating, where given (continuous faults). */
+  steadyPower?: number;
+  /** Unidirectional only: forward drop at a current (default 1.0 V at 1 A ≈ 3.6 V at 50 A). */
+  forwardVoltage?: number;
+  forwardCurrent?: number;
 }
 
 export interface VaristorElement {
@@ -113,6 +127,8 @@ export interface VaristorElement {
   surgeCurrent?: number;
   /** Energy rating (J), 10/1000 µs or 2 ms as the datasheet gives. */
   surgeEnergy?: number;
+  /** Maximum continuous DC voltage, where given; maxContinuousVoltage is the AC rms figure. */
+  maxContinuousDcVoltage?: number;
 }
 
 export interface CapacitorElement {
@@ -167,6 +183,9 @@ export interface ProtectedInput {
    * small-signal diode pair; the absolute maximum current applies to it.
    */
   internalClamps?: boolean;
+  /** Forward drop of the internal clamps at a current (default 0.7 V at 1 mA, common practice). */
+  clampForwardVoltage?: number;
+  clampForwardCurrent?: number;
 }
 
 export interface Guard {
@@ -246,6 +265,10 @@ export interface RatingCheck {
   /** (deratedRating − value) / deratedRating; negative when over. */
   margin: number | null;
   verdict: Verdict;
+  /** Absolute rating at the cabinet ambient (temperature derating only), where it differs. */
+  temperatureRating?: number | null;
+  /** One line naming the element and the numbers for this check. */
+  reason?: string;
 }
 
 export interface ElementStress {
@@ -259,6 +282,11 @@ export interface ElementStress {
   averagePower: number | null;
   /** Pulse energy (surge, ESD); null for steady cases. */
   pulseEnergy: number | null;
+  /** Peak instantaneous power. */
+  peakPower?: number;
+  /** RMS voltage across and current through, over whole cycles (steady cases). */
+  rmsVoltage?: number | null;
+  rmsCurrent?: number | null;
   checks: RatingCheck[];
   verdict: Verdict;
   /** One line naming the element and the numbers. */
@@ -302,4 +330,6 @@ export interface StressResult {
   rails: RailInjection[];
   /** Present when requested (solveStress options.waveform). */
   waveform?: Waveform;
+  /** Assumptions and model notes that apply to this result (defaults used, model limits). */
+  notes?: string[];
 }

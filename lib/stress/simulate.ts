@@ -1,0 +1,531 @@
+/**
+ * Runs one stress case through the ladder solver and accumulates what the ratings need:
+ * per-element peaks, integrals (energy, V², I², |I|), protected-input extremes, rail injection.
+ *
+ * Sampling:
+ *  - DC: one solve (capacitors carry no current in the steady state).
+ *  - AC without capacitors: the network is static, so each sample depends only on the
+ *    instantaneous source voltage. A cycle sampled uniformly at 4N points has only 2N+1
+ *    distinct values (sin is symmetric about the quarter-cycle), so N+1 solves per half-wave
+ *    give the same sums as the full 4N-point periodic trapezoid rule.
+ *  - AC with capacitors: trapezoidal companion models, uniform steps, enough whole cycles to
+ *    settle (5 time constants), then one measured cycle.
+ *  - Surge and ESD: integrated in time from t = 0 with a step that starts small on the front
+ *    and grows geometrically, limited by the local rate of change; backward Euler for the
+ *    first two steps (damps the switching discontinuity), trapezoidal after.
+ */
+import { BRANCH_CAPACITOR, BRANCH_JUNCTION, type CompiledNetwork } from './network';
+import { LadderSolver } from './ladder';
+import type { StressCase } from './types';
+import {
+  ESD_CAPACITANCE,
+  ESD_RESISTANCE,
+  SURGE_GENERATOR_IMPEDANCE,
+  SURGE_PEAK_TIME,
+  SURGE_TAU_TAIL,
+  surgeOpenCircuitVoltage,
+} from './waveforms';
+
+export interface SimulationOptions {
+  waveform?: boolean;
+  maxWaveformPoints?: number;
+  /** Record every sample's node voltages and currents (tests: Kirchhoff checks). */
+  trace?: boolean;
+  /** Samples per quarter-cycle for static AC (default 24). */
+  acQuarterSamples?: number;
+}
+
+export interface TraceSample {
+  t: number;
+  sourceVoltage: number;
+  sourceResistance: number;
+  terminalVoltage: number;
+  nodeVoltages: number[];
+  seriesCurrents: number[];
+  branchCurrents: number[];
+  /** Capacitor companion (conductance, reference) per branch at this sample. */
+  companion: [number, number][];
+}
+
+export interface Simulation {
+  steady: boolean;
+  /** Period (AC), 1 (DC) or integration span (pulses): averages are integrals / duration. */
+  duration: number;
+  peakV: Float64Array;
+  peakI: Float64Array;
+  peakP: Float64Array;
+  energy: Float64Array;
+  sumV2: Float64Array;
+  sumI2: Float64Array;
+  sumAbsI: Float64Array;
+  branchPeakI: Float64Array;
+  branchSumAbsI: Float64Array;
+  sourcePeakCurrent: number;
+  sourcePeakVoltage: number;
+  inputMaxV: number;
+  inputMinV: number;
+  inputPeakCurrent: number;
+  railPeak: [number, number];
+  railSum: [number, number];
+  samples: number;
+  evaluations: number;
+  waveform?: { t: number[]; traces: { name: string; unit: 'V' | 'A'; values: number[] }[] };
+  trace?: TraceSample[];
+  notes: string[];
+}
+
+const DEFAULT_AC_QUARTER_SAMPLES = 24;
+
+class Recorder {
+  readonly net: CompiledNetwork;
+  readonly solver: LadderSolver;
+  readonly sim: Simulation;
+  private readonly elementCount: number;
+  private readonly branchCount: number;
+  // integrands of the current and previous sample: per element p, v², i², |i|; per branch |i|; rails
+  private cur: Float64Array;
+  private prev: Float64Array;
+  private hasPrev = false;
+  private tPrev = 0;
+  private readonly wantWave: boolean;
+  private readonly wantTrace: boolean;
+  private waveT: number[] = [];
+  private waveValues: number[][] = [];
+
+  constructor(solver: LadderSolver, steady: boolean, options: SimulationOptions) {
+    this.net = solver.net;
+    this.solver = solver;
+    const e = this.net.elements.length;
+    const b = this.net.branchType.length;
+    this.elementCount = e;
+    this.branchCount = b;
+    this.cur = new Float64Array(4 * e + b + 2);
+    this.prev = new Float64Array(4 * e + b + 2);
+    this.wantWave = options.waveform === true;
+    this.wantTrace = options.trace === true;
+    this.sim = {
+      steady,
+      duration: 0,
+      peakV: new Float64Array(e),
+      peakI: new Float64Array(e),
+      peakP: new Float64Array(e),
+      energy: new Float64Array(e),
+      sumV2: new Float64Array(e),
+      sumI2: new Float64Array(e),
+      sumAbsI: new Float64Array(e),
+      branchPeakI: new Float64Array(b),
+      branchSumAbsI: new Float64Array(b),
+      sourcePeakCurrent: 0,
+      sourcePeakVoltage: 0,
+      inputMaxV: -Infinity,
+      inputMinV: Infinity,
+      inputPeakCurrent: 0,
+      railPeak: [0, 0],
+      railSum: [0, 0],
+      samples: 0,
+      evaluations: 0,
+      notes: [],
+    };
+    if (this.wantTrace) this.sim.trace = [];
+    if (this.wantWave) this.waveValues = this.waveNames().map(() => []);
+  }
+
+  waveNames(): { name: string; unit: 'V' | 'A' }[] {
+    const names: { name: string; unit: 'V' | 'A' }[] = [
+      { name: 'source', unit: 'V' },
+      { name: 'terminal', unit: 'V' },
+      { name: 'input', unit: 'V' },
+      { name: 'source current', unit: 'A' },
+    ];
+    for (const el of this.net.elements) {
+      if (el.role !== 'input') names.push({ name: `I(${el.id})`, unit: 'A' });
+    }
+    names.push({ name: 'I(input)', unit: 'A' });
+    return names;
+  }
+
+  /**
+   * Record the solver's present state. mode 'weight': add integrand × weight;
+   * mode 'trapezoid': add the trapezoid over (tPrev, t) using the previous sample.
+   */
+  record(t: number, vs: number, rs: number, weight: number | null): void {
+    const net = this.net;
+    const s = this.solver;
+    const sim = this.sim;
+    const e = this.elementCount;
+    const cur = this.cur;
+    cur.fill(0);
+    sim.samples++;
+    if (Math.abs(vs) > sim.sourcePeakVoltage) sim.sourcePeakVoltage = Math.abs(vs);
+    if (Math.abs(s.sourceCurrent) > sim.sourcePeakCurrent) sim.sourcePeakCurrent = Math.abs(s.sourceCurrent);
+    const nodes = net.nodeCount;
+    const inputV = s.v[nodes - 1];
+    if (inputV > sim.inputMaxV) sim.inputMaxV = inputV;
+    if (inputV < sim.inputMinV) sim.inputMinV = inputV;
+
+    // series elements
+    for (let k = 0; k < nodes; k++) {
+      const index = net.seriesElementOfNode[k];
+      if (index < 0) continue;
+      const v = (k === 0 ? s.terminalVoltage : s.v[k - 1]) - s.v[k];
+      const i = s.seriesCurrent[k];
+      this.accumulateElement(index, v, i, v * i);
+    }
+    // shunt branches, grouped per element
+    let inputCurrent = 0;
+    let railPositive = 0;
+    let railNegative = 0;
+    let currentElement = -1;
+    let elI = 0;
+    let elP = 0;
+    let elV = 0;
+    for (let b = 0; b < this.branchCount; b++) {
+      const index = net.branchElement[b];
+      if (index !== currentElement) {
+        if (currentElement >= 0) this.accumulateElement(currentElement, elV, elI, elP);
+        currentElement = index;
+        elI = 0;
+        elP = 0;
+        elV = 0;
+      }
+      const node = net.branchNode[b];
+      const i = s.branchCurrent[b];
+      const reference = net.branchType[b] === BRANCH_CAPACITOR ? 0 : net.branchReference[b];
+      const across = s.v[node] - reference;
+      elI += i;
+      elP += i * across;
+      if (Math.abs(across) > Math.abs(elV)) elV = across;
+      const mag = Math.abs(i);
+      if (mag > sim.branchPeakI[b]) sim.branchPeakI[b] = mag;
+      cur[4 * e + b] = mag;
+      if (index === net.inputElement) inputCurrent += i;
+      const rail = net.branchRail[b];
+      if (rail > 0) railPositive += i;
+      else if (rail < 0) railNegative -= i;
+    }
+    if (currentElement >= 0) this.accumulateElement(currentElement, elV, elI, elP);
+    if (Math.abs(inputCurrent) > sim.inputPeakCurrent) sim.inputPeakCurrent = Math.abs(inputCurrent);
+    railPositive = Math.max(railPositive, 0);
+    railNegative = Math.max(railNegative, 0);
+    if (railPositive > sim.railPeak[0]) sim.railPeak[0] = railPositive;
+    if (railNegative > sim.railPeak[1]) sim.railPeak[1] = railNegative;
+    const railBase = 4 * e + this.branchCount;
+    cur[railBase] = railPositive;
+    cur[railBase + 1] = railNegative;
+
+    // integrate
+    const sums = [sim.energy, sim.sumV2, sim.sumI2, sim.sumAbsI];
+    if (weight !== null) {
+      for (let q = 0; q < 4; q++) for (let k = 0; k < e; k++) sums[q][k] += weight * cur[4 * k + q];
+      for (let b = 0; b < this.branchCount; b++) sim.branchSumAbsI[b] += weight * cur[4 * e + b];
+      sim.railSum[0] += weight * cur[railBase];
+      sim.railSum[1] += weight * cur[railBase + 1];
+    } else if (this.hasPrev) {
+      const half = 0.5 * (t - this.tPrev);
+      const prev = this.prev;
+      for (let q = 0; q < 4; q++) for (let k = 0; k < e; k++) sums[q][k] += half * (cur[4 * k + q] + prev[4 * k + q]);
+      for (let b = 0; b < this.branchCount; b++) sim.branchSumAbsI[b] += half * (cur[4 * e + b] + prev[4 * e + b]);
+      sim.railSum[0] += half * (cur[railBase] + prev[railBase]);
+      sim.railSum[1] += half * (cur[railBase + 1] + prev[railBase + 1]);
+    }
+    this.cur = this.prev;
+    this.prev = cur;
+    this.hasPrev = true;
+    this.tPrev = t;
+
+    if (this.wantWave) this.recordWave(t, vs, inputCurrent);
+    if (this.wantTrace) {
+      sim.trace!.push({
+        t,
+        sourceVoltage: vs,
+        sourceResistance: rs,
+        terminalVoltage: s.terminalVoltage,
+        nodeVoltages: Array.from(s.v),
+        seriesCurrents: Array.from(s.seriesCurrent),
+        branchCurrents: Array.from(s.branchCurrent),
+        companion: Array.from(s.companionConductance, (g, b) => [g, s.companionReference[b]] as [number, number]),
+      });
+    }
+  }
+
+  private accumulateElement(index: number, v: number, i: number, p: number): void {
+    const sim = this.sim;
+    const av = Math.abs(v);
+    const ai = Math.abs(i);
+    if (av > sim.peakV[index]) sim.peakV[index] = av;
+    if (ai > sim.peakI[index]) sim.peakI[index] = ai;
+    if (p > sim.peakP[index]) sim.peakP[index] = p;
+    const base = 4 * index;
+    this.cur[base] = p;
+    this.cur[base + 1] = v * v;
+    this.cur[base + 2] = i * i;
+    this.cur[base + 3] = ai;
+  }
+
+  private recordWave(t: number, vs: number, inputCurrent: number): void {
+    const s = this.solver;
+    const net = this.net;
+    const values: number[] = [vs, s.terminalVoltage, s.v[net.nodeCount - 1], s.sourceCurrent];
+    const perElement = new Float64Array(net.elements.length);
+    for (let k = 0; k < net.nodeCount; k++) {
+      const index = net.seriesElementOfNode[k];
+      if (index >= 0) perElement[index] = s.seriesCurrent[k];
+    }
+    for (let b = 0; b < net.branchType.length; b++) {
+      const index = net.branchElement[b];
+      if (net.elements[index].role === 'shunt') perElement[index] += s.branchCurrent[b];
+    }
+    net.elements.forEach((el, index) => {
+      if (el.role !== 'input') values.push(perElement[index]);
+    });
+    values.push(inputCurrent);
+    this.waveT.push(t);
+    values.forEach((value, k) => this.waveValues[k].push(value));
+  }
+
+  finish(maxPoints: number): void {
+    if (!this.wantWave) return;
+    const names = this.waveNames();
+    const count = this.waveT.length;
+    const stride = Math.max(1, Math.ceil(count / Math.max(2, maxPoints)));
+    const pick = <T,>(list: T[]): T[] => list.filter((_, k) => k % stride === 0 || k === count - 1);
+    this.sim.waveform = {
+      t: pick(this.waveT),
+      traces: names.map((n, k) => ({ name: n.name, unit: n.unit, values: pick(this.waveValues[k]) })),
+    };
+  }
+}
+
+/** Set every capacitor's companion model for a step h from its last voltage and current. */
+function updateCompanions(solver: LadderSolver, h: number, trapezoidal: boolean): void {
+  const net = solver.net;
+  for (let b = 0; b < net.branchType.length; b++) {
+    if (net.branchType[b] !== BRANCH_CAPACITOR) continue;
+    const c = net.branchCapacitance[b];
+    const v = solver.v[net.branchNode[b]];
+    const i = solver.branchCurrent[b];
+    if (trapezoidal) {
+      // i(n+1) = (2C/h)(v(n+1) − v(n)) − i(n)  →  g = 2C/h, reference = v(n) + i(n)/g
+      const g = (2 * c) / h;
+      solver.companionConductance[b] = g;
+      solver.companionReference[b] = v + i / g;
+    } else {
+      // backward Euler: i(n+1) = (C/h)(v(n+1) − v(n))
+      solver.companionConductance[b] = c / h;
+      solver.companionReference[b] = v;
+    }
+  }
+}
+
+/** Source for one time step: Thevenin (vs, rs) given the step, plus a state update after it. */
+interface SteppedSource {
+  /** Thevenin source for the step ending at t (length h). */
+  thevenin(t: number, h: number, trapezoidal: boolean): [number, number];
+  /** After the solve at t: advance the source's own state. */
+  commit(current: number): void;
+  /** Open-circuit value for reporting. */
+  openCircuit(t: number): number;
+}
+
+interface StepPlan {
+  h0: number;
+  growth: number;
+  hMax: number;
+  /** Run at least this long, then until the source current has fallen below 1e-4 of its peak. */
+  tEnd: number;
+  /** A time the grid must hit exactly (the surge's open-circuit peak). */
+  tMust?: number;
+  maxSteps: number;
+}
+
+function stepThrough(solver: LadderSolver, recorder: Recorder, source: SteppedSource, plan: StepPlan): number {
+  const net = solver.net;
+  let t = 0;
+  // t = 0+: uncharged capacitors hold 0 V (backward Euler with a vanishing step is a short to 0).
+  updateCompanionsInitial(solver);
+  let [vs, rs] = source.thevenin(0, 0, false);
+  solver.solve(vs, rs);
+  source.commit(solver.sourceCurrent);
+  recorder.record(0, source.openCircuit(0), rs, null);
+  let h = plan.h0;
+  let steps = 0;
+  let peakSource = Math.abs(solver.sourceCurrent);
+  let lastCurrent = solver.sourceCurrent;
+  let lastTerminal = solver.terminalVoltage;
+  let mustPending = plan.tMust !== undefined;
+  while (steps < plan.maxSteps) {
+    if (t >= plan.tEnd && Math.abs(lastCurrent) <= 1e-4 * peakSource) break;
+    let step = h;
+    if (mustPending && t + step >= plan.tMust! - 1e-15) {
+      step = plan.tMust! - t;
+      mustPending = false;
+    }
+    const trapezoidal = steps >= 2;
+    if (net.capacitorCount > 0) updateCompanions(solver, step, trapezoidal);
+    t += step;
+    [vs, rs] = source.thevenin(t, step, trapezoidal);
+    solver.solve(vs, rs);
+    source.commit(solver.sourceCurrent);
+    recorder.record(t, source.openCircuit(t), rs, null);
+    steps++;
+    const current = solver.sourceCurrent;
+    const terminal = solver.terminalVoltage;
+    if (Math.abs(current) > peakSource) peakSource = Math.abs(current);
+    // Limit the next step by the relative change seen over this one (≈ 5 % per step).
+    const rel = Math.max(
+      Math.abs(current - lastCurrent) / Math.max(Math.abs(current), 1e-3 * peakSource, 1e-30),
+      Math.abs(terminal - lastTerminal) / Math.max(Math.abs(terminal), Math.abs(lastTerminal), 1e-9),
+    );
+    lastCurrent = current;
+    lastTerminal = terminal;
+    let next = step * plan.growth;
+    if (rel > 0.05) next = Math.min(next, step * Math.max(0.5, 0.05 / rel));
+    h = Math.min(Math.max(next, plan.h0), plan.hMax);
+  }
+  if (steps >= plan.maxSteps) recorder.sim.notes.push(`integration stopped after ${plan.maxSteps} steps at ${t.toExponential(3)} s`);
+  return t;
+}
+
+function updateCompanionsInitial(solver: LadderSolver): void {
+  const net = solver.net;
+  for (let b = 0; b < net.branchType.length; b++) {
+    if (net.branchType[b] !== BRANCH_CAPACITOR) continue;
+    solver.companionConductance[b] = net.branchCapacitance[b] / 1e-15;
+    solver.companionReference[b] = 0;
+  }
+}
+
+/** Largest capacitor time constant bound: C × (source resistance + series resistance up to its node). */
+function capacitorTimeConstant(net: CompiledNetwork, sourceResistance: number): number {
+  let tau = 0;
+  for (let b = 0; b < net.branchType.length; b++) {
+    if (net.branchType[b] !== BRANCH_CAPACITOR) continue;
+    let r = sourceResistance;
+    for (let k = 0; k <= net.branchNode[b]; k++) r += net.seriesResistance[k];
+    tau = Math.max(tau, net.branchCapacitance[b] * r);
+  }
+  return tau;
+}
+
+/** Applied sign: a hazard on the return terminal reverses the polarity the guard sees. */
+export function simulate(net: CompiledNetwork, stressCase: StressCase, sign: 1 | -1, options: SimulationOptions = {}): Simulation {
+  const solver = new LadderSolver(net);
+  const steady = stressCase.kind === 'dc' || stressCase.kind === 'ac';
+  const recorder = new Recorder(solver, steady, options);
+  const sim = recorder.sim;
+  const maxPoints = options.maxWaveformPoints ?? 2000;
+
+  switch (stressCase.kind) {
+    case 'dc': {
+      const vs = sign * stressCase.voltage;
+      solver.solve(vs, stressCase.sourceResistance);
+      recorder.record(0, vs, stressCase.sourceResistance, 1);
+      sim.duration = 1;
+      break;
+    }
+    case 'ac': {
+      const peak = sign * stressCase.rmsVoltage * Math.SQRT2;
+      const rs = stressCase.sourceResistance;
+      const period = 1 / stressCase.frequency;
+      if (net.capacitorCount === 0) {
+        const quarter = options.acQuarterSamples ?? (options.waveform ? 90 : DEFAULT_AC_QUARTER_SAMPLES);
+        const h = period / (4 * quarter);
+        if (options.waveform || options.trace) {
+          // full cycle in time order (same sums as the symmetric plan)
+          for (let m = 0; m < 4 * quarter; m++) {
+            const t = m * h;
+            const vs = peak * Math.sin((2 * Math.PI * m) / (4 * quarter));
+            solver.solve(vs, rs);
+            recorder.record(t, vs, rs, h);
+          }
+        } else {
+          for (const polarity of [1, -1]) {
+            for (let j = polarity === 1 ? 0 : 1; j <= quarter; j++) {
+              const vs = polarity * peak * Math.sin((Math.PI / 2) * (j / quarter));
+              const weight = j === 0 ? 2 * h : j === quarter ? h : 2 * h;
+              solver.solve(vs, rs);
+              recorder.record(0, vs, rs, weight);
+            }
+          }
+        }
+      } else {
+        const stepsPerCycle = 720;
+        const h = period / stepsPerCycle;
+        const tau = capacitorTimeConstant(net, rs);
+        const settleCycles = Math.min(100, Math.ceil((5 * tau) / period));
+        if (settleCycles === 100) sim.notes.push('capacitor time constant is long against the period: steady state approximated after 100 cycles');
+        let steps = 0;
+        updateCompanionsInitial(solver);
+        solver.solve(0, rs);
+        const total = (settleCycles + 1) * stepsPerCycle;
+        for (let m = 1; m <= total; m++) {
+          updateCompanions(solver, h, steps >= 2);
+          steps++;
+          const t = m * h;
+          const vs = peak * Math.sin(2 * Math.PI * stressCase.frequency * t);
+          solver.solve(vs, rs);
+          if (m > settleCycles * stepsPerCycle) recorder.record(t - settleCycles * period, vs, rs, h);
+        }
+      }
+      sim.duration = period;
+      break;
+    }
+    case 'surge': {
+      const peak = sign * stressCase.peakVoltage;
+      const rs = SURGE_GENERATOR_IMPEDANCE + stressCase.couplingResistance;
+      const source: SteppedSource = {
+        thevenin: (t) => [surgeOpenCircuitVoltage(t, peak), rs],
+        commit: () => undefined,
+        openCircuit: (t) => surgeOpenCircuitVoltage(t, peak),
+      };
+      const tau = capacitorTimeConstant(net, rs);
+      sim.duration = stepThrough(solver, recorder, source, {
+        h0: 5e-9,
+        growth: 1.06,
+        hMax: 4e-6,
+        tEnd: 8 * SURGE_TAU_TAIL + 5 * tau,
+        tMust: SURGE_PEAK_TIME,
+        maxSteps: 20000,
+      });
+      break;
+    }
+    case 'esd': {
+      // 150 pF charged to V discharging through 330 Ω: its trapezoidal (or backward Euler)
+      // companion in series with 330 Ω is a Thevenin source per step.
+      let capVoltage = sign * stressCase.voltage;
+      let lastCurrent = 0;
+      let pendingH = 0;
+      let pendingTrap = false;
+      const c = ESD_CAPACITANCE;
+      const source: SteppedSource = {
+        thevenin: (_t, h, trapezoidal) => {
+          pendingH = h;
+          pendingTrap = trapezoidal;
+          if (h === 0) return [capVoltage, ESD_RESISTANCE];
+          if (trapezoidal) return [capVoltage - (h / (2 * c)) * lastCurrent, ESD_RESISTANCE + h / (2 * c)];
+          return [capVoltage, ESD_RESISTANCE + h / c];
+        },
+        commit: (current) => {
+          if (pendingH > 0) {
+            capVoltage -= pendingTrap ? (pendingH / (2 * c)) * (current + lastCurrent) : (pendingH / c) * current;
+          }
+          lastCurrent = current;
+        },
+        openCircuit: () => capVoltage,
+      };
+      const tauSource = c * ESD_RESISTANCE;
+      const tau = Math.max(capacitorTimeConstant(net, ESD_RESISTANCE), tauSource);
+      sim.duration = stepThrough(solver, recorder, source, {
+        h0: 2e-11,
+        growth: 1.08,
+        hMax: 1e-6,
+        tEnd: 10 * tau,
+        maxSteps: 20000,
+      });
+      break;
+    }
+  }
+  recorder.finish(maxPoints);
+  sim.evaluations = solver.evaluations;
+  return sim;
+}

@@ -1,0 +1,40 @@
+/**
+ * Source waveforms of the stress cases.
+ *
+ * Surge (IEC 61000-4-5 combination wave). We model the generator as its open-circuit
+ * 1.2/50 µs voltage behind its 2 Ω effective output impedance plus the coupling resistance
+ * (Thevenin form), not as the standard's charging-capacitor/pulse-shaping circuit. Why:
+ *  - it is exact where the audit lives: signal lines couple through 40 Ω (42 Ω total), a load
+ *    large enough that the generator's output follows its open-circuit shape;
+ *  - into low impedance (2 Ω / 12 Ω coupling onto a clamp) the real generator delivers an
+ *    8/20 µs current, shorter than the 1.2/50 µs shape used here, so pulse energy and charge
+ *    are overestimated (≈ 2–3× into a short): conservative for every rating;
+ *  - the short-circuit peak is still open-circuit peak / 2 Ω, the standard's defining ratio;
+ *  - the standard fixes the waveforms, not the generator's component values, so a circuit
+ *    model would add fitted numbers without a source.
+ * The double exponential below is fitted to the standard's definitions (IEC 61000-4-5 clause 3:
+ * front time T1 = 1.67 × (t90 − t30), duration T2 from the virtual origin to half value on
+ * the tail): τ1 = 0.40503 µs, τ2 = 68.217 µs give T1 = 1.200 µs and T2 = 50.00 µs.
+ *
+ * ESD (IEC 61000-4-2): the generator's energy-storage capacitance 150 pF discharged through
+ * its discharge resistance 330 Ω (the standard's Figure 1 circuit values), switched at t = 0.
+ * The pure RC carries the generator's full charge C·V and energy ½·C·V² but not the
+ * calibration waveform's sub-nanosecond first peak: see tests/stress/published.test.ts.
+ */
+
+export const SURGE_GENERATOR_IMPEDANCE = 2;
+export const SURGE_TAU_FRONT = 0.4050343086387387e-6;
+export const SURGE_TAU_TAIL = 68.21697156035133e-6;
+/** Peak of exp(−t/τ2) − exp(−t/τ1), reached at SURGE_PEAK_TIME. */
+export const SURGE_SHAPE_PEAK = 0.9640856865905347;
+export const SURGE_PEAK_TIME =
+  (Math.log(SURGE_TAU_TAIL / SURGE_TAU_FRONT) * SURGE_TAU_FRONT * SURGE_TAU_TAIL) / (SURGE_TAU_TAIL - SURGE_TAU_FRONT);
+
+/** Open-circuit surge voltage at time t for an open-circuit peak `peak`. */
+export function surgeOpenCircuitVoltage(t: number, peak: number): number {
+  if (t <= 0) return 0;
+  return (peak / SURGE_SHAPE_PEAK) * (Math.exp(-t / SURGE_TAU_TAIL) - Math.exp(-t / SURGE_TAU_FRONT));
+}
+
+export const ESD_CAPACITANCE = 150e-12;
+export const ESD_RESISTANCE = 330;

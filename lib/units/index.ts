@@ -1,0 +1,2 @@
+export { parseEng, formatEng, EngParseError } from './eng';
+export type { UnitSymbol } from './eng';
