@@ -30,19 +30,26 @@ export interface JunctionParams {
 export function lambertWOfExp(x: number): number {
   if (x < -40) return Math.exp(x); // W(z) = z − z² + … and z < 5e-18 here
   let w: number;
-  if (x > 1) {
-    w = x - Math.log(x);
+  if (x > 2) {
+    // asymptotic start (de Bruijn): W ≈ L1 − L2 + L2/L1, L1 = x, L2 = ln x
+    const l2 = Math.log(x);
+    w = x - l2 + l2 / x;
   } else {
-    const z = Math.exp(x);
-    w = z / (1 + z);
+    // Winitzki's approximation W(z) ≈ L(1 − ln(1 + L)/(2 + L)), L = ln(1 + z): within 1 %.
+    const l = Math.log1p(Math.exp(x));
+    w = l * (1 - Math.log1p(l) / (2 + l));
   }
-  // Newton on f(w) = w + ln w − x (f' = 1 + 1/w): quadratic, monotone from this start.
-  for (let k = 0; k < 40; k++) {
+  // Halley on f(w) = w + ln w − x, f' = 1 + 1/w, f'' = −1/w²: cubic convergence.
+  for (let k = 0; k < 20; k++) {
     const f = w + Math.log(w) - x;
-    const next = w - (f * w) / (1 + w);
-    const step = Math.abs(next - w);
-    w = next > 0 ? next : w / 2;
-    if (step <= 1e-15 * w) break;
+    const d1 = 1 + 1 / w;
+    const d2 = -1 / (w * w);
+    const denominator = d1 - (0.5 * f * d2) / d1;
+    const step = denominator > 0.5 * d1 ? f / denominator : f / d1;
+    const next = w - step;
+    w = next > 0 ? next : w / 4;
+    // Halley converges cubically: a step below 1e-6·w leaves an error near 1e-18·w.
+    if (Math.abs(step) <= 1e-6 * w) break;
   }
   return w;
 }
@@ -57,6 +64,32 @@ export function junctionCurrent(p: JunctionParams, u: number, out: { i: number; 
   const total = (nvt / rs) * w; // i + Is
   out.i = total - isat;
   // dv/di = n·Vt/(i + Is) + Rs; total can underflow to 0 far in reverse: conductance 0 then.
+  out.g = total > 0 ? 1 / (nvt / total + rs) : 0;
+}
+
+/**
+ * The same with the constant parts precomputed (the solver's hot path):
+ * logPrefactor = ln(Is·Rs/nVt) + Is·Rs/nVt, inverseNvt = 1/nVt.
+ */
+export function junctionCurrentFast(
+  isat: number,
+  rs: number,
+  nvt: number,
+  inverseNvt: number,
+  logPrefactor: number,
+  u: number,
+  out: { i: number; g: number },
+): void {
+  const x = logPrefactor + u * inverseNvt;
+  if (x < -40) {
+    // far below the knee: W(e^x) = e^x to 1e-17, i + Is = Is·exp(u/nVt)
+    const total = (nvt / rs) * Math.exp(x);
+    out.i = total - isat;
+    out.g = total * inverseNvt;
+    return;
+  }
+  const total = (nvt / rs) * lambertWOfExp(x);
+  out.i = total - isat;
   out.g = total > 0 ? 1 / (nvt / total + rs) : 0;
 }
 

@@ -18,7 +18,7 @@ import {
   BRANCH_POWER_LAW,
   type CompiledNetwork,
 } from './network';
-import { junctionCurrent } from './junction';
+import { junctionCurrentFast } from './junction';
 
 /** exp(60) ≈ 1e26: beyond this a power-law branch continues linearly (never reached by a real solution). */
 const POWER_LAW_EXPONENT_LIMIT = 60;
@@ -42,6 +42,8 @@ export class LadderSolver {
   /** Newton/bisection evaluations in all solves so far (for the benchmark). */
   evaluations = 0;
   private lastX = 0;
+  private lastVs = 0;
+  private lastDerivative = 1;
   private derivative = 1;
   private readonly scratch = { i: 0, g: 0 };
 
@@ -83,8 +85,15 @@ export class LadderSolver {
             break;
           case BRANCH_JUNCTION: {
             const dir = net.branchDirection[b];
-            const params = net.branchJunction[b]!;
-            junctionCurrent(params, dir * (voltage - net.branchReference[b]) - params.offset, scratch);
+            junctionCurrentFast(
+              net.branchIsat[b],
+              net.branchRs[b],
+              net.branchNvt[b],
+              net.branchInverseNvt[b],
+              net.branchLogPrefactor[b],
+              dir * (voltage - net.branchReference[b]) - net.branchOffset[b],
+              scratch,
+            );
             i = dir * scratch.i;
             g = scratch.g;
             break;
@@ -133,8 +142,9 @@ export class LadderSolver {
    */
   solve(vs: number, rs: number): number {
     const start = this.evaluations;
-    const tolerance = 1e-12 * Math.max(1, Math.abs(vs));
-    let x = this.lastX;
+    const tolerance = 1e-11 * Math.max(1, Math.abs(vs));
+    // First Newton step from the previous solution, using its derivative (no evaluation).
+    let x = this.lastX + (vs - this.lastVs) / this.lastDerivative;
     let r = this.evaluate(x, rs) - vs;
     if (Math.abs(r) > tolerance) {
       // dF/dx ≥ 1, so the root lies between x and x − r.
@@ -151,12 +161,16 @@ export class LadderSolver {
       }
     }
     this.lastX = x;
+    this.lastVs = vs;
+    this.lastDerivative = this.derivative;
     return this.evaluations - start;
   }
 
   /** Forget the warm start (a new case). */
   reset(): void {
     this.lastX = 0;
+    this.lastVs = 0;
+    this.lastDerivative = 1;
     this.companionConductance.fill(0);
     this.companionReference.fill(0);
   }

@@ -13,6 +13,7 @@ import {
   breakdownParams,
   forwardDiodeParams,
   junctionVoltage,
+  THERMAL_VOLTAGE,
   tvsBreakdownParams,
   type JunctionParams,
 } from './junction';
@@ -72,6 +73,13 @@ export interface CompiledNetwork {
   branchRail: Int8Array; // +1 positive rail, −1 negative rail, 0 common
   branchElement: Int32Array;
   branchJunction: (JunctionParams | null)[];
+  /** Junction constants for the hot path (see junctionCurrentFast). */
+  branchIsat: Float64Array;
+  branchRs: Float64Array;
+  branchNvt: Float64Array;
+  branchInverseNvt: Float64Array;
+  branchLogPrefactor: Float64Array;
+  branchOffset: Float64Array;
   branchConductance: Float64Array;
   branchI1: Float64Array;
   branchV1: Float64Array;
@@ -230,6 +238,12 @@ export function compileGuard(guard: Guard): CompiledNetwork {
     branchRail: new Int8Array(count),
     branchElement: new Int32Array(count),
     branchJunction: new Array<JunctionParams | null>(count).fill(null),
+    branchIsat: new Float64Array(count),
+    branchRs: new Float64Array(count),
+    branchNvt: new Float64Array(count),
+    branchInverseNvt: new Float64Array(count),
+    branchLogPrefactor: new Float64Array(count),
+    branchOffset: new Float64Array(count),
     branchConductance: new Float64Array(count),
     branchI1: new Float64Array(count),
     branchV1: new Float64Array(count),
@@ -259,6 +273,16 @@ export function compileGuard(guard: Guard): CompiledNetwork {
         spec.reference === 'positiveRail' ? guard.input.positiveRail : spec.reference === 'negativeRail' ? guard.input.negativeRail : 0;
       net.branchElement[b] = element;
       net.branchJunction[b] = spec.junction ?? null;
+      if (spec.junction) {
+        const j = spec.junction;
+        const nvt = j.emission * THERMAL_VOLTAGE;
+        net.branchIsat[b] = j.saturationCurrent;
+        net.branchRs[b] = j.seriesResistance;
+        net.branchNvt[b] = nvt;
+        net.branchInverseNvt[b] = 1 / nvt;
+        net.branchLogPrefactor[b] = Math.log((j.saturationCurrent * j.seriesResistance) / nvt) + (j.saturationCurrent * j.seriesResistance) / nvt;
+        net.branchOffset[b] = j.offset;
+      }
       net.branchConductance[b] = spec.conductance ?? 0;
       net.branchI1[b] = spec.i1 ?? 0;
       net.branchV1[b] = spec.v1 ?? 1;

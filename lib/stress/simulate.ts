@@ -22,17 +22,51 @@ import {
   ESD_RESISTANCE,
   SURGE_GENERATOR_IMPEDANCE,
   SURGE_PEAK_TIME,
-  SURGE_TAU_TAIL,
+  SURGE_SPAN,
+  surgeLevelWeights,
   surgeOpenCircuitVoltage,
 } from './waveforms';
+
+/** Intervals of the charge-voltage quadrature for ESD into a static network. */
+const ESD_STATIC_INTERVALS = 32;
+
+/**
+ * ESD into a network without capacitors: the only state is the generator capacitor's voltage
+ * Vc, and dVc/dt = −i(Vc)/C with i the static network's current. So every time integral
+ * becomes an integral over Vc: ∫ f dt = C ∫ f(Vc) / i(Vc) dVc, from the charge voltage down to 0
+ * (composite Simpson in Vc). Where the current has all but stopped (|i| below 1e-9 of its
+ * peak: a clamp that no longer conducts holds the remaining charge), the rest is dropped.
+ */
+function esdStatic(solver: LadderSolver, recorder: Recorder, charge: number): void {
+  const n = ESD_STATIC_INTERVALS;
+  const h = Math.abs(charge) / n;
+  let peak = 0;
+  const currents: number[] = [];
+  let duration = 0;
+  // from the full charge down (peak first, so the cut-off is known), warm-starting each solve
+  for (let j = n; j >= 0; j--) {
+    const vc = (charge * j) / n;
+    solver.solve(vc, ESD_RESISTANCE);
+    const i = Math.abs(solver.sourceCurrent);
+    if (j === n) peak = i;
+    currents.push(i);
+    const simpson = j === 0 || j === n ? 1 : j % 2 === 1 ? 4 : 2;
+    const weight = i > 1e-9 * peak ? (ESD_CAPACITANCE * (h / 3) * simpson) / i : 0;
+    duration += weight;
+    recorder.record(0, vc, ESD_RESISTANCE, weight);
+  }
+  recorder.sim.duration = duration;
+}
 
 export interface SimulationOptions {
   waveform?: boolean;
   maxWaveformPoints?: number;
   /** Record every sample's node voltages and currents (tests: Kirchhoff checks). */
   trace?: boolean;
-  /** Samples per quarter-cycle for static AC (default 24). */
+  /** Samples per quarter-cycle for static AC (default 16). */
   acQuarterSamples?: number;
+  /** Integrate surge/ESD in time even where a static shortcut applies (tests compare both). */
+  forceTimeStepping?: boolean;
 }
 
 export interface TraceSample {
@@ -74,7 +108,7 @@ export interface Simulation {
   notes: string[];
 }
 
-const DEFAULT_AC_QUARTER_SAMPLES = 24;
+const DEFAULT_AC_QUARTER_SAMPLES = 16;
 
 class Recorder {
   readonly net: CompiledNetwork;
@@ -214,17 +248,34 @@ class Recorder {
     cur[railBase + 1] = railNegative;
 
     // integrate
-    const sums = [sim.energy, sim.sumV2, sim.sumI2, sim.sumAbsI];
+    const energy = sim.energy;
+    const sumV2 = sim.sumV2;
+    const sumI2 = sim.sumI2;
+    const sumAbsI = sim.sumAbsI;
+    const branchSum = sim.branchSumAbsI;
+    const branches = this.branchCount;
     if (weight !== null) {
-      for (let q = 0; q < 4; q++) for (let k = 0; k < e; k++) sums[q][k] += weight * cur[4 * k + q];
-      for (let b = 0; b < this.branchCount; b++) sim.branchSumAbsI[b] += weight * cur[4 * e + b];
+      for (let k = 0; k < e; k++) {
+        const base = 4 * k;
+        energy[k] += weight * cur[base];
+        sumV2[k] += weight * cur[base + 1];
+        sumI2[k] += weight * cur[base + 2];
+        sumAbsI[k] += weight * cur[base + 3];
+      }
+      for (let b = 0; b < branches; b++) branchSum[b] += weight * cur[4 * e + b];
       sim.railSum[0] += weight * cur[railBase];
       sim.railSum[1] += weight * cur[railBase + 1];
     } else if (this.hasPrev) {
       const half = 0.5 * (t - this.tPrev);
       const prev = this.prev;
-      for (let q = 0; q < 4; q++) for (let k = 0; k < e; k++) sums[q][k] += half * (cur[4 * k + q] + prev[4 * k + q]);
-      for (let b = 0; b < this.branchCount; b++) sim.branchSumAbsI[b] += half * (cur[4 * e + b] + prev[4 * e + b]);
+      for (let k = 0; k < e; k++) {
+        const base = 4 * k;
+        energy[k] += half * (cur[base] + prev[base]);
+        sumV2[k] += half * (cur[base + 1] + prev[base + 1]);
+        sumI2[k] += half * (cur[base + 2] + prev[base + 2]);
+        sumAbsI[k] += half * (cur[base + 3] + prev[base + 3]);
+      }
+      for (let b = 0; b < branches; b++) branchSum[b] += half * (cur[4 * e + b] + prev[4 * e + b]);
       sim.railSum[0] += half * (cur[railBase] + prev[railBase]);
       sim.railSum[1] += half * (cur[railBase + 1] + prev[railBase + 1]);
     }
@@ -473,6 +524,17 @@ export function simulate(net: CompiledNetwork, stressCase: StressCase, sign: 1 |
     case 'surge': {
       const peak = sign * stressCase.peakVoltage;
       const rs = SURGE_GENERATOR_IMPEDANCE + stressCase.couplingResistance;
+      if (net.capacitorCount === 0 && !options.waveform && !options.trace && !options.forceTimeStepping) {
+        // Static network: each quantity is a function of the source level u = v/peak only,
+        // so ∫ f(peak·s(t)) dt = Σ W_j f(peak·u_j) with the waveform's level weights W_j.
+        const { levels, weights, span } = surgeLevelWeights();
+        for (let j = 0; j < levels.length; j++) {
+          solver.solve(peak * levels[j], rs);
+          recorder.record(0, peak * levels[j], rs, weights[j]);
+        }
+        sim.duration = span;
+        break;
+      }
       const source: SteppedSource = {
         thevenin: (t) => [surgeOpenCircuitVoltage(t, peak), rs],
         commit: () => undefined,
@@ -483,13 +545,17 @@ export function simulate(net: CompiledNetwork, stressCase: StressCase, sign: 1 |
         h0: 5e-9,
         growth: 1.06,
         hMax: 4e-6,
-        tEnd: 8 * SURGE_TAU_TAIL + 5 * tau,
+        tEnd: SURGE_SPAN + 5 * tau,
         tMust: SURGE_PEAK_TIME,
         maxSteps: 20000,
       });
       break;
     }
     case 'esd': {
+      if (net.capacitorCount === 0 && !options.waveform && !options.trace && !options.forceTimeStepping) {
+        esdStatic(solver, recorder, sign * stressCase.voltage);
+        break;
+      }
       // 150 pF charged to V discharging through 330 Ω: its trapezoidal (or backward Euler)
       // companion in series with 330 Ω is a Thevenin source per step.
       let capVoltage = sign * stressCase.voltage;
