@@ -11,7 +11,7 @@ const optionalId = (field: string) =>
 
 /** Per-channel overrides of the recipe's figures (SI numbers), checked like the model checks them. */
 export const guardOverridesField = z
-  .unknown()
+  .optional(z.unknown())
   .superRefine((value, ctx) => {
     for (const message of overridesShapeProblems(value)) ctx.addIssue({ code: 'custom', message });
   })

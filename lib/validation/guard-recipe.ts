@@ -37,6 +37,7 @@ function parseFigures(where: string, figures: unknown, problems: string[]): unkn
 /** A guard with engineering strings parsed to SI numbers, or the problems found. */
 export function normaliseGuard(value: unknown): { guard: Guard; problems: [] } | { guard: null; problems: string[] } {
   const problems: string[] = [];
+  if (value === undefined || value === null) return { guard: null, problems: ['guard is required: an object with stages and input.'] };
   if (!isObject(value)) return { guard: null, problems: ['guard must be an object with stages and input.'] };
   const stages = Array.isArray(value.stages)
     ? value.stages.map((stage: unknown, i: number) => {
@@ -56,7 +57,7 @@ export function normaliseGuard(value: unknown): { guard: Guard; problems: [] } |
   return problems.length ? { guard: null, problems } : { guard: candidate as unknown as Guard, problems: [] };
 }
 
-export const guardField = z.unknown().transform((value, ctx) => {
+export const guardField = z.optional(z.unknown()).transform((value, ctx) => {
   const result = normaliseGuard(value);
   if (result.guard) return result.guard;
   for (const message of result.problems) ctx.addIssue({ code: 'custom', message });
