@@ -28,7 +28,7 @@ import {
 } from './waveforms';
 
 /** Intervals of the charge-voltage quadrature for ESD into a static network. */
-const ESD_STATIC_INTERVALS = 32;
+const ESD_STATIC_INTERVALS = 40;
 
 /**
  * ESD into a network without capacitors: the only state is the generator capacitor's voltage
@@ -38,74 +38,71 @@ const ESD_STATIC_INTERVALS = 32;
  * peak: a clamp that no longer conducts holds the remaining charge), the rest is dropped.
  */
 function esdStatic(solver: LadderSolver, recorder: Recorder, charge: number): void {
-  const n = ESD_STATIC_INTERVALS;
-  const h = Math.abs(charge) / n;
+  const nodes = esdNodes(solver.net, charge);
+  // trapezoid weights in Vc over the sorted nodes, then weight = C·w/|i|
+  const currents = new Float64Array(nodes.length);
   let peak = 0;
-  const currents: number[] = [];
   let duration = 0;
-  // from the full charge down (peak first, so the cut-off is known), warm-starting each solve
-  for (let j = n; j >= 0; j--) {
-    const vc = (charge * j) / n;
+  // solve from the full charge down: the peak first, warm starts between neighbours
+  for (let j = nodes.length - 1; j >= 0; j--) {
+    const vc = nodes[j];
     solver.solve(vc, ESD_RESISTANCE);
     const i = Math.abs(solver.sourceCurrent);
-    if (j === n) peak = i;
-    currents.push(i);
-    const simpson = j === 0 || j === n ? 1 : j % 2 === 1 ? 4 : 2;
-    const weight = i > 1e-9 * peak ? (ESD_CAPACITANCE * (h / 3) * simpson) / i : 0;
+    currents[j] = i;
+    if (j === nodes.length - 1) peak = i;
+    const left = j > 0 ? Math.abs(vc - nodes[j - 1]) : 0;
+    const right = j < nodes.length - 1 ? Math.abs(nodes[j + 1] - vc) : 0;
+    const w = 0.5 * (left + right);
+    const weight = i > 1e-9 * peak ? (ESD_CAPACITANCE * w) / i : 0;
     duration += weight;
     recorder.record(0, vc, ESD_RESISTANCE, weight);
   }
   recorder.sim.duration = duration;
 }
 
-export interface SimulationOptions {
-  waveform?: boolean;
-  maxWaveformPoints?: number;
-  /** Record every sample's node voltages and currents (tests: Kirchhoff checks). */
-  trace?: boolean;
-  /** Samples per quarter-cycle for static AC (default 16). */
-  acQuarterSamples?: number;
-  /** Integrate surge/ESD in time even where a static shortcut applies (tests compare both). */
-  forceTimeStepping?: boolean;
+/**
+ * Charge-voltage nodes for the ESD quadrature: Vc = V·s³ on a uniform s grid (crowding towards
+ * 0 V), plus a cluster just above each clamp's knee, where the network's current changes
+ * character and the integrand bends sharply. Sorted ascending in |Vc|, signed like `charge`.
+ */
+function esdNodes(net: CompiledNetwork, charge: number): number[] {
+  const magnitude = Math.abs(charge);
+  const sign = charge < 0 ? -1 : 1;
+  const values: number[] = [];
+  for (let j = 0; j <= ESD_STATIC_INTERVALS; j++) {
+    const s = j / ESD_STATIC_INTERVALS;
+    values.push(magnitude * s * s * s);
+  }
+  for (const knee of clampKnees(net, sign)) {
+    if (!(knee > 0 && knee < magnitude)) continue;
+    for (const f of ESD_KNEE_FACTORS) {
+      const v = knee * f;
+      if (v > 0 && v < magnitude) values.push(v);
+    }
+  }
+  values.sort((a, b) => a - b);
+  const nodes: number[] = [];
+  for (const v of values) if (nodes.length === 0 || v - nodes[nodes.length - 1] > 1e-9 * magnitude) nodes.push(sign * v);
+  return nodes;
 }
 
-export interface TraceSample {
-  t: number;
-  sourceVoltage: number;
-  sourceResistance: number;
-  terminalVoltage: number;
-  nodeVoltages: number[];
-  seriesCurrents: number[];
-  branchCurrents: number[];
-  /** Capacitor companion (conductance, reference) per branch at this sample. */
-  companion: [number, number][];
-}
+const ESD_KNEE_FACTORS = [0.9, 0.97, 1, 1.01, 1.025, 1.05, 1.08, 1.12, 1.18, 1.27, 1.4, 1.6, 1.9, 2.4, 3.2];
 
-export interface Simulation {
-  steady: boolean;
-  /** Period (AC), 1 (DC) or integration span (pulses): averages are integrals / duration. */
-  duration: number;
-  peakV: Float64Array;
-  peakI: Float64Array;
-  peakP: Float64Array;
-  energy: Float64Array;
-  sumV2: Float64Array;
-  sumI2: Float64Array;
-  sumAbsI: Float64Array;
-  branchPeakI: Float64Array;
-  branchSumAbsI: Float64Array;
-  sourcePeakCurrent: number;
-  sourcePeakVoltage: number;
-  inputMaxV: number;
-  inputMinV: number;
-  inputPeakCurrent: number;
-  railPeak: [number, number];
-  railSum: [number, number];
-  samples: number;
-  evaluations: number;
-  waveform?: { t: number[]; traces: { name: string; unit: 'V' | 'A'; values: number[] }[] };
-  trace?: TraceSample[];
-  notes: string[];
+/** Node voltages (magnitude, for a source of the given sign) at which each clamp reaches ~0.1 mA. */
+function clampKnees(net: CompiledNetwork, sign: number): number[] {
+  const knees: number[] = [];
+  for (let b = 0; b < net.branchType.length; b++) {
+    const type = net.branchType[b];
+    if (type === BRANCH_JUNCTION) {
+      const dir = net.branchDirection[b];
+      if (dir !== sign) continue;
+      const u = net.branchOffset[b] + net.branchNvt[b] * Math.log1p(1e-4 / net.branchIsat[b]) + 1e-4 * net.branchRs[b];
+      knees.push(Math.abs(net.branchReference[b] + dir * u));
+    } else if (type === 2) {
+      knees.push(net.branchV1[b]);
+    }
+  }
+  return knees;
 }
 
 const DEFAULT_AC_QUARTER_SAMPLES = 16;
@@ -500,7 +497,7 @@ export function simulate(net: CompiledNetwork, stressCase: StressCase, sign: 1 |
           }
         }
       } else {
-        const stepsPerCycle = 720;
+        const stepsPerCycle = 2000;
         const h = period / stepsPerCycle;
         const tau = capacitorTimeConstant(net, rs);
         const settleCycles = Math.min(100, Math.ceil((5 * tau) / period));

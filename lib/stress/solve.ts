@@ -392,8 +392,9 @@ export function solveWithNetwork(
       role: info.role === 'series' ? 'series' : 'shunt',
       peakVoltage: f.peakV,
       peakCurrent: isRailPair ? f.diodePeak : f.peakI,
-      averagePower: sim.steady ? f.average : null,
-      pulseEnergy: sim.steady ? null : f.energy,
+      // An ideal capacitor dissipates nothing: it is judged on its peak voltage.
+      averagePower: sim.steady ? (info.kind === 'capacitor' ? 0 : f.average) : null,
+      pulseEnergy: sim.steady ? null : info.kind === 'capacitor' ? 0 : f.energy,
       peakPower: f.peakP,
       rmsVoltage: sim.steady ? f.rmsV : null,
       rmsCurrent: sim.steady ? f.rmsI : null,
