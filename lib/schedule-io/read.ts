@@ -66,7 +66,8 @@ function cellsToTable(kind: ScheduleFileKind, records: { row: number; cells: str
   while (headers.length && headers.at(-1) === '') headers.pop();
   if (headers.every((h) => h === '')) refuse('The first row must name the columns; it is empty.');
   const rows = body
-    .map((r) => ({ row: r.row, cells: r.cells.map((c) => c.trim()) }))
+    // One cell per named column, so CSV and XLSX rows read alike (XLSX omits trailing blanks).
+    .map((r) => ({ row: r.row, cells: headers.map((_, i) => (r.cells[i] ?? '').trim()) }))
     .filter((r) => r.cells.some((c) => c !== ''));
   if (rows.length > MAX_IMPORT_ROWS) refuse(`The file has ${rows.length} rows; at most ${MAX_IMPORT_ROWS} can be imported at once.`);
   return { kind, headers, rows };

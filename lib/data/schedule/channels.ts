@@ -19,8 +19,8 @@ export type ChannelRow = Attributes<Channel> & {
 
 async function toRows(channels: Channel[], transaction?: Transaction): Promise<ChannelRow[]> {
   const { models } = getDb();
-  const terminalIds = channels.flatMap((c) => [c.signalTerminalId, c.returnTerminalId]).filter((id): id is number => id !== null);
-  const recipeIds = channels.map((c) => c.guardRecipeId).filter((id): id is number => id !== null);
+  const terminalIds = channels.flatMap((c) => [c.signalTerminalId, c.returnTerminalId]).filter((id): id is number => id != null);
+  const recipeIds = channels.map((c) => c.guardRecipeId).filter((id): id is number => id != null);
   const terminals = terminalIds.length
     ? await models.Terminal.findAll({ where: { id: { [Op.in]: terminalIds } }, attributes: ['id', 'label'], transaction })
     : [];
@@ -86,7 +86,7 @@ async function assertTagFree(projectId: number, tag: string, exceptId: number | 
 /** Points the channel's signal/return terminals at it, and releases terminals it no longer uses. */
 async function syncTerminalLinks(channel: Channel, transaction: Transaction) {
   const { models } = getDb();
-  const wanted = new Set([channel.signalTerminalId, channel.returnTerminalId].filter((id): id is number => id !== null));
+  const wanted = new Set([channel.signalTerminalId, channel.returnTerminalId].filter((id): id is number => id != null));
   const linked = await models.Terminal.findAll({ where: { channelId: channel.id }, transaction });
   for (const t of linked) {
     if (!wanted.has(t.id)) await t.update({ channelId: null }, { transaction });

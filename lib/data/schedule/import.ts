@@ -2,9 +2,11 @@
  * Schedule import for one cabinet: preview (every row's problems, nothing written) and
  * commit (all rows in one transaction, or nothing). Rows are matched to terminals by
  * strip tag + position + level: a match is updated (the mapped columns only), otherwise a
- * terminal is created; a strip tag the cabinet lacks is created. A channel tag must name an
- * existing channel of this cabinet — an unknown tag is a row error (a channel needs its
- * signal type, which the schedule does not carry).
+ * terminal is created; a strip tag the cabinet lacks is created. A channel tag names a
+ * channel of this cabinet; a tag the project does not have yet is created as a channel of
+ * this cabinet with signal type "other" and no guard (the preview lists them in
+ * `channelsToCreate`, and the audit calls such a channel unprotected until the engineer sets
+ * its type and guard). A tag that belongs to another cabinet is a row error.
  */
 import { Op, type Transaction } from 'sequelize';
 import { logAction } from '@/lib/data/audit-log';
@@ -42,6 +44,8 @@ export interface ImportPreview {
   errorCount: number;
   /** Rows with no error. */
   validCount: number;
+  /** Channel tags the commit will create (signal type "other", no guard), in file order. */
+  channelsToCreate: string[];
 }
 
 export interface ImportResult {
@@ -49,6 +53,7 @@ export interface ImportResult {
   updated: number;
   unchanged: number;
   stripsCreated: string[];
+  channelsCreated: string[];
 }
 
 /** A commit refused because some row (or the mapping) has a problem; nothing was written. */
@@ -108,6 +113,7 @@ async function analyse(
       : readRows(table, mapping);
 
   const previewRows: ImportPreview['rows'] = [];
+  const channelsToCreate: string[] = [];
   for (const r of rows) {
     let action: 'create' | 'update' | null = null;
     if (r.parsed) {
@@ -115,10 +121,7 @@ async function analyse(
       if (channelTag) {
         const channel = channels.get(channelTag);
         if (!channel) {
-          r.errors.push({
-            column: 'channel',
-            message: `channel "${channelTag}" does not exist in this project; create the channel first, or leave the cell empty.`,
-          });
+          if (!channelsToCreate.includes(channelTag)) channelsToCreate.push(channelTag);
         } else if (channel.cabinetId !== cabinetId) {
           r.errors.push({ column: 'channel', message: `channel "${channelTag}" belongs to another cabinet.` });
         }
@@ -146,6 +149,7 @@ async function analyse(
     rows: previewRows,
     errorCount: mappingErrors.length + rowErrors,
     validCount: mappingErrors.length > 0 ? 0 : previewRows.filter((r) => r.errors.length === 0).length,
+    channelsToCreate,
   };
   return { preview, rows, strips, existing, channels };
 }
@@ -165,11 +169,25 @@ export async function commitImport(actor: ScheduleActor, cabinetId: number, uplo
     const a = await analyse(actor.projectId, cabinetId, upload, table, transaction);
     if (a.preview.errorCount > 0) throw new ImportRejectedError(a.preview);
 
-    const result: ImportResult = { created: 0, updated: 0, unchanged: 0, stripsCreated: [] };
+    const result: ImportResult = { created: 0, updated: 0, unchanged: 0, stripsCreated: [], channelsCreated: [] };
     const createdLabels: string[] = [];
     const updatedLabels: string[] = [];
     let order = await nextStripOrder(cabinetId, transaction);
     try {
+      for (const tag of a.preview.channelsToCreate) {
+        const channel = await models.Channel.create(
+          {
+            projectId: actor.projectId,
+            cabinetId,
+            tag,
+            signalType: 'other',
+            notes: `Created by the schedule import of ${upload.name}: set its signal type and guard.`,
+          },
+          { transaction },
+        );
+        a.channels.set(tag, channel);
+        result.channelsCreated.push(tag);
+      }
       for (const r of a.rows) {
         const { stripTag, channelTag, fields } = r.parsed!;
         let strip = a.strips.get(stripTag);
@@ -196,9 +214,9 @@ export async function commitImport(actor: ScheduleActor, cabinetId: number, uplo
           createdLabels.push(terminal.label);
         }
         // Fill in a channel's missing signal/return terminal from the schedule; never replace one.
-        if (channel && fields.circuitClass === 'sensitive' && channel.signalTerminalId === null && channel.returnTerminalId !== terminal.id) {
+        if (channel && fields.circuitClass === 'sensitive' && channel.signalTerminalId == null && channel.returnTerminalId !== terminal.id) {
           await channel.update({ signalTerminalId: terminal.id }, { transaction });
-        } else if (channel && fields.circuitClass === 'return' && channel.returnTerminalId === null && channel.signalTerminalId !== terminal.id) {
+        } else if (channel && fields.circuitClass === 'return' && channel.returnTerminalId == null && channel.signalTerminalId !== terminal.id) {
           await channel.update({ returnTerminalId: terminal.id }, { transaction });
         }
       }
@@ -220,6 +238,7 @@ export async function commitImport(actor: ScheduleActor, cabinetId: number, uplo
           updated: updatedLabels,
           unchanged: result.unchanged,
           stripsCreated: result.stripsCreated,
+          channelsCreated: result.channelsCreated,
         },
       },
       transaction,
