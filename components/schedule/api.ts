@@ -17,6 +17,8 @@ import type {
 export interface ConflictEntry<T = unknown> {
   id: number;
   current: T;
+  /** Who saved the newer version, when the server says (see the contract's Changes). */
+  changedBy?: { name: string; at?: string } | null;
 }
 
 export class ApiError extends Error {
@@ -24,6 +26,7 @@ export class ApiError extends Error {
   readonly fieldErrors: Record<string, string[]>;
   readonly current: unknown;
   readonly conflicts: ConflictEntry[];
+  readonly changedBy: ConflictEntry['changedBy'];
   /** The whole body, for answers that carry more (an import preview on 422). */
   readonly body: unknown;
 
@@ -35,6 +38,7 @@ export class ApiError extends Error {
     this.fieldErrors = (b.fieldErrors as Record<string, string[]> | undefined) ?? {};
     this.current = b.current;
     this.conflicts = Array.isArray(b.conflicts) ? (b.conflicts as ConflictEntry[]) : [];
+    this.changedBy = (b.changedBy as ConflictEntry['changedBy']) ?? null;
     this.body = body;
   }
 

@@ -165,7 +165,7 @@ export function CabinetWorkspace({
         />
       ) : null}
 
-      <div className="grid gap-6 xl:grid-cols-[1fr_18rem]">
+      <div className="grid gap-6 2xl:grid-cols-[1fr_18rem]">
         <Panel className="min-w-0 p-3 sm:p-5">
           <PanelTitle>Terminal schedule</PanelTitle>
           {terminals.isPending ? (

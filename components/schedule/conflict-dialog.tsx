@@ -12,9 +12,9 @@ function formatWhen(iso: string | undefined) {
   return Number.isNaN(d.getTime()) ? iso : d.toLocaleString();
 }
 
-/** Who changed it, when the server says (an optional `updatedByName` on the record). */
-function who(current: TerminalRow) {
-  const name = (current as TerminalRow & { updatedByName?: string | null }).updatedByName;
+/** Who changed it, when the server says (`changedBy` on the conflict, or `updatedByName` on the record). */
+function who(item: ConflictItem) {
+  const name = item.changedBy?.name ?? (item.current as TerminalRow & { updatedByName?: string | null }).updatedByName;
   return name ? name : 'someone else';
 }
 
@@ -61,8 +61,8 @@ export function ConflictDialog({
               <li key={item.id} className="rounded-sm border border-line p-3">
                 <p className="font-medium">
                   <span className="font-mono">{item.current.label}</span> on strip{' '}
-                  <span className="font-mono">{item.current.stripTag}</span> was changed by {who(item.current)} at{' '}
-                  {formatWhen(item.current.updatedAt)} (version {item.base?.version ?? '?'} → {item.current.version}).
+                  <span className="font-mono">{item.current.stripTag}</span> was changed by {who(item)} at{' '}
+                  {formatWhen(item.changedBy?.at ?? item.current.updatedAt)} (version {item.base?.version ?? '?'} → {item.current.version}).
                 </p>
                 <div className="mt-2 grid gap-2 md:grid-cols-2">
                   <div>

@@ -14,6 +14,7 @@ export interface ConflictItem {
   /** The row as it now stands on the server. */
   current: TerminalRow;
   mine: TerminalUpdate['changes'];
+  changedBy: { name: string; at?: string } | null;
 }
 
 export type WriteOutcome =
@@ -76,13 +77,14 @@ export function useTerminalWrites(
             error.conflicts.length > 0
               ? error.conflicts
               : error.current
-                ? [{ id: updates[0].id, current: error.current }]
+                ? [{ id: updates[0].id, current: error.current, changedBy: error.changedBy }]
                 : [];
           const conflicts = list.map((c) => ({
             id: c.id,
             base: baseById.get(c.id),
             current: c.current as TerminalRow,
             mine: byId.get(c.id)?.changes ?? {},
+            changedBy: c.changedBy ?? null,
           }));
           return { ok: false, kind: 'conflict', message: error.message, conflicts, updates };
         }

@@ -235,9 +235,24 @@ export function StripDrawing({
               </text>
               {l.strip.name ? (
                 <text x={8} y={l.top + BRIDGE_H + 34} className="fill-muted text-[10px]">
-                  {l.strip.name.length > 11 ? `${l.strip.name.slice(0, 10)}…` : l.strip.name}
+                  {l.strip.name.length > 9 ? `${l.strip.name.slice(0, 8)}…` : l.strip.name}
                 </text>
               ) : null}
+
+              {/* multi-level blocks: each level named once, at the left of its row */}
+              {l.levels > 1
+                ? Array.from({ length: l.levels }, (_, i) => i + 1).map((level) => (
+                    <text
+                      key={`level-${level}`}
+                      x={TAG_W - 8}
+                      y={l.top + BRIDGE_H + (l.levels - level) * TILE_H + TILE_H - 12}
+                      textAnchor="end"
+                      className="fill-muted font-mono text-[10px]"
+                    >
+                      {`L${level}`}
+                    </text>
+                  ))
+                : null}
 
               {/* empty positions: a faint slot */}
               {Array.from({ length: l.maxPosition }, (_, i) => i + 1)
@@ -363,11 +378,6 @@ export function StripDrawing({
                     <text x={x + PITCH / 2} y={y + 40} textAnchor="middle" className="fill-ink font-mono text-[9.5px]">
                       {voltageText(t)}
                     </text>
-                    {l.levels > 1 ? (
-                      <text x={x + 8} y={y + 40} className="fill-muted font-mono text-[8px]">
-                        {`L${t.level}`}
-                      </text>
-                    ) : null}
                     {verdict ? (
                       <g>
                         <rect
