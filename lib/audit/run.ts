@@ -24,6 +24,14 @@ import { assertAuditable } from './validate';
 
 const zeroVerdicts = (): Record<Verdict, number> => ({ holds: 0, marginal: 0, fails: 0, unprotected: 0, incomplete: 0 });
 
+interface PreparedHazardCase {
+  built: HazardCaseResult;
+  /** Cache key of the case (stress and terminal side), computed once per hazard and side. */
+  caseKey: string;
+  /** Cabinet tag / terminal label: unique across the project, stable across runs. */
+  hazardRef: string;
+}
+
 type Solved = { ok: true; result: StressResult; utilisation: number; margin: number | null } | { ok: false; reason: string };
 
 function compareStrings(a: string, b: string): number {
@@ -62,7 +70,7 @@ export function runAuditWith(snapshot: ProjectSnapshot, solve: StressSolver, opt
   // Many channels share a recipe: one guard object and one solution per distinct input.
   const guards = new Map<string, Guard>();
   const solved = new Map<string, Solved>();
-  const hazardCases = new Map<string, HazardCaseResult>();
+  const hazardCases = new Map<string, PreparedHazardCase>();
   let solverCalls = 0;
 
   const guardOf = (c: ChannelSnapshot): { key: string; guard: Guard } | null => {
@@ -170,9 +178,13 @@ export function runAuditWith(snapshot: ProjectSnapshot, solve: StressSolver, opt
         const hazard = terminalById.get(e.hazardTerminalId)!;
         const hcKey = `${hazard.id}\u0000${appliedTo}`;
         let hc = hazardCases.get(hcKey);
-        if (!hc) hazardCases.set(hcKey, (hc = hazardCase(hazard, settings, appliedTo)));
-        const finding = exposureFinding(channel, g, target, hazard, e, appliedTo, hc, cabinetTagOfStrip, judged);
-        exposed.push({ finding, peak: hc.ok ? hc.case.peakVoltage : 0 });
+        if (!hc) {
+          const built = hazardCase(hazard, settings, appliedTo);
+          hc = { built, caseKey: built.ok ? `${JSON.stringify(built.case.stress)}\u0000${appliedTo}` : '', hazardRef: `${cabinetTagOfStrip.get(hazard.stripId) ?? ''}/${hazard.label}` };
+          hazardCases.set(hcKey, hc);
+        }
+        const finding = exposureFinding(channel, g, target, hazard, e, appliedTo, hc, judged);
+        exposed.push({ finding, peak: hc.built.ok ? hc.built.case.peakVoltage : 0 });
         findingsByMechanism[e.mechanism]++;
       }
     }
@@ -230,8 +242,7 @@ function exposureFinding(
   hazard: TerminalSnapshot,
   e: Exposure,
   appliedTo: HazardTerminal,
-  hc: HazardCaseResult,
-  cabinetTagOfStrip: Map<string, string>,
+  hc: PreparedHazardCase,
   judged: (
     channel: ChannelSnapshot,
     g: { key: string; guard: Guard } | null,
@@ -239,34 +250,33 @@ function exposureFinding(
     caseKey: string,
   ) => Pick<Finding, 'verdict' | 'reason' | 'margin' | 'utilisation' | 'elements' | 'input' | 'rails' | 'sourcePeakCurrent'>,
 ): Finding {
-  const hazardRef = `${cabinetTagOfStrip.get(hazard.stripId) ?? ''}/${hazard.label}`;
-  const caseId = hc.ok ? hc.case.id : `${hazard.hazardKind ?? 'other'}:unknown`;
-  const base = {
-    key: `${channel.tag}|${caseId}|${hazardRef}|${e.mechanism}:${e.route}|${appliedTo}`,
-    channelId: channel.id,
-    channelTag: channel.tag,
-    caseId,
-    appliedTo,
-    exposure: {
-      hazardTerminalId: hazard.id,
-      hazardLabel: hazard.label,
-      targetTerminalId: target.id,
-      targetLabel: target.label,
-      mechanism: e.mechanism,
-      route: e.route,
-      likelihood: e.likelihood,
-      weight: e.weight,
-      reason: e.reason,
-    },
+  const built = hc.built;
+  const caseId = built.ok ? built.case.id : `${hazard.hazardKind ?? 'other'}:unknown`;
+  const exposure = {
+    hazardTerminalId: hazard.id,
+    hazardLabel: hazard.label,
+    targetTerminalId: target.id,
+    targetLabel: target.label,
+    mechanism: e.mechanism,
+    route: e.route,
+    likelihood: e.likelihood,
+    weight: e.weight,
+    reason: e.reason,
   };
-  if (!hc.ok) {
+  const key = `${channel.tag}|${caseId}|${hc.hazardRef}|${e.mechanism}:${e.route}|${appliedTo}`;
+  if (!built.ok) {
     return {
-      ...base,
+      key,
+      channelId: channel.id,
+      channelTag: channel.tag,
+      caseId,
       caseLabel: `${hazard.label}: no stress case`,
       basis: 'the hazard terminal lacks the facts to build one',
       stress: null,
+      appliedTo,
+      exposure,
       verdict: 'incomplete',
-      reason: hc.reason,
+      reason: built.reason,
       margin: null,
       utilisation: 0,
       score: hazardScore(e.weight, 'incomplete', 0),
@@ -276,13 +286,25 @@ function exposureFinding(
       sourcePeakCurrent: null,
     };
   }
-  const j = judged(channel, g, hc.case, `${JSON.stringify(hc.case.stress)}\u0000${appliedTo}`);
+  const j = judged(channel, g, built.case, hc.caseKey);
   return {
-    ...base,
-    caseLabel: hc.case.label,
-    basis: hc.case.basis,
-    stress: hc.case.stress,
-    ...j,
+    key,
+    channelId: channel.id,
+    channelTag: channel.tag,
+    caseId,
+    caseLabel: built.case.label,
+    basis: built.case.basis,
+    stress: built.case.stress,
+    appliedTo,
+    exposure,
+    verdict: j.verdict,
+    reason: j.reason,
+    margin: j.margin,
+    utilisation: j.utilisation,
     score: hazardScore(e.weight, j.verdict, j.utilisation),
+    elements: j.elements,
+    input: j.input,
+    rails: j.rails,
+    sourcePeakCurrent: j.sourcePeakCurrent,
   };
 }

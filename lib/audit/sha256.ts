@@ -4,7 +4,8 @@
  * vectors and against node:crypto in tests/audit/hash.test.ts.
  */
 
-const K = new Uint32Array([
+// Int32Array so every value stays a 32-bit integer in the hot loop (no heap doubles).
+const K = new Int32Array([
   0x428a2f98, 0x71374491, 0xb5c0fbcf, 0xe9b5dba5, 0x3956c25b, 0x59f111f1, 0x923f82a4, 0xab1c5ed5,
   0xd807aa98, 0x12835b01, 0x243185be, 0x550c7dc3, 0x72be5d74, 0x80deb1fe, 0x9bdc06a7, 0xc19bf174,
   0xe49b69c1, 0xefbe4786, 0x0fc19dc6, 0x240ca1cc, 0x2de92c6f, 0x4a7484aa, 0x5cb0a9dc, 0x76f988da,
@@ -25,11 +26,13 @@ export function sha256(data: Uint8Array): Uint8Array {
   view.setUint32(padded.length - 8, Math.floor(bitLength / 0x100000000));
   view.setUint32(padded.length - 4, bitLength >>> 0);
 
-  let h0 = 0x6a09e667, h1 = 0xbb67ae85, h2 = 0x3c6ef372, h3 = 0xa54ff53a;
-  let h4 = 0x510e527f, h5 = 0x9b05688c, h6 = 0x1f83d9ab, h7 = 0x5be0cd19;
-  const w = new Uint32Array(64);
+  let h0 = 0x6a09e667 | 0, h1 = 0xbb67ae85 | 0, h2 = 0x3c6ef372 | 0, h3 = 0xa54ff53a | 0;
+  let h4 = 0x510e527f | 0, h5 = 0x9b05688c | 0, h6 = 0x1f83d9ab | 0, h7 = 0x5be0cd19 | 0;
+  const w = new Int32Array(64);
   for (let off = 0; off < padded.length; off += 64) {
-    for (let i = 0; i < 16; i++) w[i] = view.getUint32(off + i * 4);
+    for (let i = 0, j = off; i < 16; i++, j += 4) {
+      w[i] = (padded[j]! << 24) | (padded[j + 1]! << 16) | (padded[j + 2]! << 8) | padded[j + 3]!;
+    }
     for (let i = 16; i < 64; i++) {
       const a = w[i - 15]!;
       const b = w[i - 2]!;
@@ -57,8 +60,10 @@ export function sha256(data: Uint8Array): Uint8Array {
   return out;
 }
 
+const encoder = new TextEncoder();
+
 export function sha256Hex(text: string): string {
-  const digest = sha256(new TextEncoder().encode(text));
+  const digest = sha256(encoder.encode(text));
   let hex = '';
   for (const byte of digest) hex += byte.toString(16).padStart(2, '0');
   return hex;

@@ -61,21 +61,28 @@ export function rotatedReading(n: string): string | null {
  * of n, so look-ups against an index stay O(length) per terminal.
  */
 export function similarWireNumbers(n: string): string[] {
-  if (n.length < 2) return [];
   const out = new Set<string>();
+  forEachSimilarWireNumber(n, (v) => out.add(v));
+  return [...out].sort();
+}
+
+/**
+ * Calls `visit` with every `similar` number (possibly more than once, never with n itself).
+ * The allocation-light form the mapping uses in its hot loop.
+ */
+export function forEachSimilarWireNumber(n: string, visit: (variant: string) => void): void {
+  if (n.length < 2) return;
   for (let i = 0; i < n.length; i++) {
     const partners = CONFUSABLE.get(n[i]!);
     if (!partners) continue;
-    for (const p of partners) out.add(n.slice(0, i) + p + n.slice(i + 1));
+    for (const p of partners) visit(n.slice(0, i) + p + n.slice(i + 1));
   }
   for (let i = 0; i + 1 < n.length; i++) {
     if (n[i] === n[i + 1]) continue;
-    out.add(n.slice(0, i) + n[i + 1] + n[i] + n.slice(i + 2));
+    visit(n.slice(0, i) + n[i + 1] + n[i] + n.slice(i + 2));
   }
   const rotated = rotatedReading(n);
-  if (rotated !== null) out.add(rotated);
-  out.delete(n);
-  return [...out].sort();
+  if (rotated !== null && rotated !== n) visit(rotated);
 }
 
 /** Whether two raw wire numbers look alike, and how ('same', 'similar' or null). */

@@ -1,5 +1,5 @@
 import { hazardCurrentKind, isHazard, isTargetClass, nominalPeakVoltage, terminalNumberOf } from './hazard';
-import { normaliseWireNumber, similarWireNumbers } from './lookalike';
+import { forEachSimilarWireNumber, normaliseWireNumber } from './lookalike';
 import { barrierBetween, buildStripLayout, lowerBound, type StripLayout } from './strip-layout';
 import {
   DEFAULT_LIKELIHOOD_WEIGHTS,
@@ -334,25 +334,30 @@ export function mapExposures(w: WiringSnapshot, options: ExposureOptions = {}): 
       for (const h of idx.hazardsByWire.get(`${cabinet}\u0000${wire}`) ?? []) {
         emit(t, h, 'wire-number-same', `${h.label} (${describeHazard(h)}) carries the same wire number ${wire} as ${t.label}`);
       }
-      for (const variant of similarWireNumbers(wire)) {
-        for (const h of idx.hazardsByWire.get(`${cabinet}\u0000${variant}`) ?? []) {
+      forEachSimilarWireNumber(wire, (variant) => {
+        const hits = idx.hazardsByWire.get(`${cabinet}\u0000${variant}`);
+        if (!hits) return;
+        for (const h of hits) {
           emit(t, h, 'wire-number-similar', `${h.label} (${describeHazard(h)}) wire number ${variant} reads like ${wire} on ${t.label}`);
         }
-      }
+      });
     }
   }
 
   const countsByMechanism = Object.fromEntries(MECHANISMS.map((m) => [m, 0])) as Record<Mechanism, number>;
   const targets: TargetExposures[] = idx.targetIds.map((id) => {
     const list = found.get(id) ?? [];
-    const seen = new Set<string>();
-    const unique = list.filter((e) => {
-      const k = `${e.hazardTerminalId}\u0000${e.route}`;
-      if (seen.has(k)) return false;
-      seen.add(k);
-      return true;
-    });
-    unique.sort((a, b) => {
+    let unique = list;
+    if (list.length > 1) {
+      const seen = new Set<string>();
+      unique = list.filter((e) => {
+        const k = `${e.hazardTerminalId}\u0000${e.route}`;
+        if (seen.has(k)) return false;
+        seen.add(k);
+        return true;
+      });
+    }
+    if (unique.length > 1) unique.sort((a, b) => {
       const ha = idx.terminalById.get(a.hazardTerminalId)!;
       const hb = idx.terminalById.get(b.hazardTerminalId)!;
       return (

@@ -1,6 +1,6 @@
 import { createHash } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
-import { canonicalJson, diffSnapshots, sha256Hex, snapshotHash } from '@/lib/audit';
+import { canonicalJson, canonicalSnapshot, diffSnapshots, sha256Hex, snapshotHash } from '@/lib/audit';
 import { kestrelSnapshot } from './fixtures';
 
 describe('SHA-256', () => {
@@ -38,6 +38,11 @@ describe('snapshot hash', () => {
     b.terminals[0] = Object.fromEntries(Object.entries(b.terminals[0]!).reverse()) as typeof b.terminals[0];
     expect(snapshotHash(a)).toBe(snapshotHash(b));
     expect(snapshotHash(a)).toMatch(/^[0-9a-f]{64}$/);
+  });
+
+  it('the server (native) and browser (plain TypeScript) paths give the same hash', () => {
+    const s = kestrelSnapshot();
+    expect(snapshotHash(s)).toBe(sha256Hex(canonicalJson(canonicalSnapshot(s))));
   });
 
   it('null and absent optional facts hash alike (database rows against form input)', () => {
