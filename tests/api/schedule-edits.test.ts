@@ -100,6 +100,13 @@ describe('validation names the field and why, and changes nothing', () => {
     const dupCabinet = await call(cabinets.POST, { params: p, body: { tag: '+BH1', name: 'Again' } });
     expect(dupCabinet.status).toBe(422);
     expect(dupCabinet.body.fieldErrors.tag[0]).toMatch(/already used/);
+    const badGuard = await call(recipes.POST, {
+      params: p,
+      body: { name: 'Broken', guard: { stages: [{ series: { kind: 'resistor', id: 'R1', resistance: '4q' }, shunts: [] }], input: { positiveRail: 24, negativeRail: 0 } } },
+    });
+    expect(badGuard.status).toBe(422);
+    expect(badGuard.body.fieldErrors['guard.stages.0.series.resistance'][0]).toMatch(/unknown unit or suffix "q"/);
+    expect(badGuard.body.fieldErrors['guard.input.absMaxBeyondRail'][0]).toMatch(/required/);
     const unknownField = await call(cabinet.PATCH, { method: 'PATCH', params: { ...p, cabinetId: w.cabinetId }, body: { version: 0, colour: 'red' } });
     expect(unknownField.status).toBe(422);
     expect(await snapshot()).toEqual(before);
