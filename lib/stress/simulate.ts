@@ -18,8 +18,11 @@ import { BRANCH_CAPACITOR, BRANCH_JUNCTION, type CompiledNetwork } from './netwo
 import { LadderSolver } from './ladder';
 import type { StressCase } from './types';
 import {
+  ESD_BRANCHES,
   ESD_CAPACITANCE,
   ESD_RESISTANCE,
+  ESD_TIP_CAPACITANCE,
+  ESD_TIP_RESISTANCE,
   SURGE_GENERATOR_IMPEDANCE,
   SURGE_PEAK_TIME,
   SURGE_SPAN,
@@ -38,24 +41,48 @@ const ESD_STATIC_INTERVALS = 40;
  * peak: a clamp that no longer conducts holds the remaining charge), the rest is dropped.
  */
 function esdStatic(solver: LadderSolver, recorder: Recorder, charge: number): void {
+  // Tip phase (the first nanoseconds): the tip branch discharges from V towards the terminal
+  // voltage while the body (τ ≥ 50 ns) still holds V. Its excess over the body-only state,
+  // ∫ (f(body + tip) − f(body)) dt = C_tip ∫ (f(V, Vt) − f(V)) / i_tip dVt, on nodes crowding
+  // towards the equilibrium Vt* where the tip current stops.
+  const rBody = ESD_RESISTANCE;
+  const rTip = ESD_TIP_RESISTANCE;
+  solver.solve(charge, rBody);
+  const equilibrium = solver.terminalVoltage;
+  const tipNodes = 10;
+  let tipTime = 0;
+  const combinedR = 1 / (1 / rBody + 1 / rTip);
+  for (let j = tipNodes; j >= 1; j--) {
+    const q = j / tipNodes;
+    const vt = equilibrium + (charge - equilibrium) * q * q;
+    const width = Math.abs(charge - equilibrium) * ((j === tipNodes ? 0 : ((j + 1) / tipNodes) ** 2 - q * q) + (q * q - ((j - 1) / tipNodes) ** 2)) * 0.5;
+    solver.solve(combinedR * (charge / rBody + vt / rTip), combinedR);
+    const iTip = Math.abs((vt - solver.terminalVoltage) / rTip);
+    const weight = iTip > 0 ? (ESD_TIP_CAPACITANCE * width) / iTip : 0;
+    tipTime += weight;
+    recorder.record(0, charge, combinedR, weight);
+  }
+  // subtract the body-only state over the same time (the body integral below counts it)
+  solver.solve(charge, rBody);
+  recorder.record(0, charge, rBody, -tipTime);
+
+  // Body: Vc from the full charge down to 0 on knee-refined nodes, weight = C·w/|i|; the
+  // charge the tip still holds at Vt* discharges with the body, so it joins the body's C.
+  const bodyCapacitance = ESD_CAPACITANCE + (charge !== 0 ? ESD_TIP_CAPACITANCE * (equilibrium / charge) : 0);
   const nodes = esdNodes(solver.net, charge);
-  // trapezoid weights in Vc over the sorted nodes, then weight = C·w/|i|
-  const currents = new Float64Array(nodes.length);
   let peak = 0;
   let duration = 0;
-  // solve from the full charge down: the peak first, warm starts between neighbours
   for (let j = nodes.length - 1; j >= 0; j--) {
     const vc = nodes[j];
-    solver.solve(vc, ESD_RESISTANCE);
+    solver.solve(vc, rBody);
     const i = Math.abs(solver.sourceCurrent);
-    currents[j] = i;
     if (j === nodes.length - 1) peak = i;
     const left = j > 0 ? Math.abs(vc - nodes[j - 1]) : 0;
     const right = j < nodes.length - 1 ? Math.abs(nodes[j + 1] - vc) : 0;
     const w = 0.5 * (left + right);
-    const weight = i > 1e-9 * peak ? (ESD_CAPACITANCE * w) / i : 0;
+    const weight = i > 1e-9 * peak ? (bodyCapacitance * w) / i : 0;
     duration += weight;
-    recorder.record(0, vc, ESD_RESISTANCE, weight);
+    recorder.record(0, vc, rBody, weight);
   }
   recorder.sim.duration = duration;
 }
@@ -103,6 +130,56 @@ function clampKnees(net: CompiledNetwork, sign: number): number[] {
     }
   }
   return knees;
+}
+
+export interface SimulationOptions {
+  waveform?: boolean;
+  maxWaveformPoints?: number;
+  /** Record every sample's node voltages and currents (tests: Kirchhoff checks). */
+  trace?: boolean;
+  /** Samples per quarter-cycle for static AC (default 16). */
+  acQuarterSamples?: number;
+  /** Integrate surge/ESD in time even where a static shortcut applies (tests compare both). */
+  forceTimeStepping?: boolean;
+}
+
+export interface TraceSample {
+  t: number;
+  sourceVoltage: number;
+  sourceResistance: number;
+  terminalVoltage: number;
+  nodeVoltages: number[];
+  seriesCurrents: number[];
+  branchCurrents: number[];
+  /** Capacitor companion (conductance, reference) per branch at this sample. */
+  companion: [number, number][];
+}
+
+export interface Simulation {
+  steady: boolean;
+  /** Period (AC), 1 (DC) or integration span (pulses): averages are integrals / duration. */
+  duration: number;
+  peakV: Float64Array;
+  peakI: Float64Array;
+  peakP: Float64Array;
+  energy: Float64Array;
+  sumV2: Float64Array;
+  sumI2: Float64Array;
+  sumAbsI: Float64Array;
+  branchPeakI: Float64Array;
+  branchSumAbsI: Float64Array;
+  sourcePeakCurrent: number;
+  sourcePeakVoltage: number;
+  inputMaxV: number;
+  inputMinV: number;
+  inputPeakCurrent: number;
+  railPeak: [number, number];
+  railSum: [number, number];
+  samples: number;
+  evaluations: number;
+  waveform?: { t: number[]; traces: { name: string; unit: 'V' | 'A'; values: number[] }[] };
+  trace?: TraceSample[];
+  notes: string[];
 }
 
 const DEFAULT_AC_QUARTER_SAMPLES = 16;
@@ -370,7 +447,7 @@ interface SteppedSource {
   /** Thevenin source for the step ending at t (length h). */
   thevenin(t: number, h: number, trapezoidal: boolean): [number, number];
   /** After the solve at t: advance the source's own state. */
-  commit(current: number): void;
+  commit(current: number, terminalVoltage: number): void;
   /** Open-circuit value for reporting. */
   openCircuit(t: number): number;
 }
@@ -393,7 +470,7 @@ function stepThrough(solver: LadderSolver, recorder: Recorder, source: SteppedSo
   updateCompanionsInitial(solver);
   let [vs, rs] = source.thevenin(0, 0, false);
   solver.solve(vs, rs);
-  source.commit(solver.sourceCurrent);
+  source.commit(solver.sourceCurrent, solver.terminalVoltage);
   recorder.record(0, source.openCircuit(0), rs, null);
   let h = plan.h0;
   let steps = 0;
@@ -413,7 +490,7 @@ function stepThrough(solver: LadderSolver, recorder: Recorder, source: SteppedSo
     t += step;
     [vs, rs] = source.thevenin(t, step, trapezoidal);
     solver.solve(vs, rs);
-    source.commit(solver.sourceCurrent);
+    source.commit(solver.sourceCurrent, solver.terminalVoltage);
     recorder.record(t, source.openCircuit(t), rs, null);
     steps++;
     const current = solver.sourceCurrent;
@@ -553,10 +630,10 @@ export function simulate(net: CompiledNetwork, stressCase: StressCase, sign: 1 |
         esdStatic(solver, recorder, sign * stressCase.voltage);
         break;
       }
-      // 150 pF charged to V discharging through 330 Ω: its trapezoidal (or backward Euler)
-      // companion in series with 330 Ω is a Thevenin source per step.
-      let capVoltage = sign * stressCase.voltage;
-      let lastCurrent = 0;
+      // Each generator branch (150 pF / 330 Ω body, and the tip branch) is a charged capacitor
+      // in series with its resistor; its trapezoidal (or backward Euler) companion is a
+      // Thevenin source per step, and the branches in parallel combine into one.
+      const branches = ESD_BRANCHES.map((b) => ({ c: b.capacitance, r: b.resistance, v: sign * stressCase.voltage, i: 0, veq: 0, req: 0 }));
       let pendingH = 0;
       let pendingTrap = false;
       const c = ESD_CAPACITANCE;
@@ -564,17 +641,32 @@ export function simulate(net: CompiledNetwork, stressCase: StressCase, sign: 1 |
         thevenin: (_t, h, trapezoidal) => {
           pendingH = h;
           pendingTrap = trapezoidal;
-          if (h === 0) return [capVoltage, ESD_RESISTANCE];
-          if (trapezoidal) return [capVoltage - (h / (2 * c)) * lastCurrent, ESD_RESISTANCE + h / (2 * c)];
-          return [capVoltage, ESD_RESISTANCE + h / c];
-        },
-        commit: (current) => {
-          if (pendingH > 0) {
-            capVoltage -= pendingTrap ? (pendingH / (2 * c)) * (current + lastCurrent) : (pendingH / c) * current;
+          let conductance = 0;
+          let norton = 0;
+          for (const b of branches) {
+            if (h === 0) {
+              b.veq = b.v;
+              b.req = b.r;
+            } else if (trapezoidal) {
+              b.veq = b.v - (h / (2 * b.c)) * b.i;
+              b.req = b.r + h / (2 * b.c);
+            } else {
+              b.veq = b.v;
+              b.req = b.r + h / b.c;
+            }
+            conductance += 1 / b.req;
+            norton += b.veq / b.req;
           }
-          lastCurrent = current;
+          return [norton / conductance, 1 / conductance];
         },
-        openCircuit: () => capVoltage,
+        commit: (_current, terminal) => {
+          for (const b of branches) {
+            const i = (b.veq - terminal) / b.req;
+            if (pendingH > 0) b.v -= pendingTrap ? (pendingH / (2 * b.c)) * (i + b.i) : (pendingH / b.c) * i;
+            b.i = i;
+          }
+        },
+        openCircuit: () => branches[0].v,
       };
       const tauSource = c * ESD_RESISTANCE;
       const tau = Math.max(capacitorTimeConstant(net, ESD_RESISTANCE), tauSource);

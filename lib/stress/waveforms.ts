@@ -17,9 +17,14 @@
  * the tail): τ1 = 0.40503 µs, τ2 = 68.217 µs give T1 = 1.200 µs and T2 = 50.00 µs.
  *
  * ESD (IEC 61000-4-2): the generator's energy-storage capacitance 150 pF discharged through
- * its discharge resistance 330 Ω (the standard's Figure 1 circuit values), switched at t = 0.
- * The pure RC carries the generator's full charge C·V and energy ½·C·V² but not the
- * calibration waveform's sub-nanosecond first peak: see tests/stress/published.test.ts.
+ * its discharge resistance 330 Ω (the standard's generator circuit values, clause 6.1), plus a
+ * small "tip" branch for the calibration waveform's fast first peak. Into the standard's 2 Ω
+ * current target the 150 pF / 330 Ω body alone gives 3.01 A/kV at t = 0, 1.65 A/kV at 30 ns
+ * and 0.90 A/kV at 60 ns: the 30 and 60 ns points fall within the standard's 2 and 1 A/kV
+ * ±30 %, but the first peak (3.75 A/kV ±15 %) does not. The tip branch — 0.738 pF through
+ * 1353 Ω, fitted here (no source for these two values) so that the current into 2 Ω at t = 0+
+ * is exactly 3.75 A/kV, decaying in 1 ns — adds that peak with 0.5 % of the charge. It rises
+ * instantly (no 0.8 ns rise time): conservative for peak current and voltage.
  */
 
 export const SURGE_GENERATOR_IMPEDANCE = 2;
@@ -38,6 +43,15 @@ export function surgeOpenCircuitVoltage(t: number, peak: number): number {
 
 export const ESD_CAPACITANCE = 150e-12;
 export const ESD_RESISTANCE = 330;
+/** Tip branch: 1/R_tip = 3.75 A/kV − 1/(330 Ω + 2 Ω), less the 2 Ω target; τ = 1 ns. */
+export const ESD_TIP_RESISTANCE = 1 / (3.75e-3 - 1 / (ESD_RESISTANCE + 2)) - 2;
+export const ESD_TIP_CAPACITANCE = 1e-9 / ESD_TIP_RESISTANCE;
+export const ESD_BRANCHES = [
+  { capacitance: ESD_CAPACITANCE, resistance: ESD_RESISTANCE },
+  { capacitance: ESD_TIP_CAPACITANCE, resistance: ESD_TIP_RESISTANCE },
+] as const;
+/** Output resistance of the generator at t = 0+ (both branches in parallel). */
+export const ESD_SOURCE_RESISTANCE_AT_ZERO = 1 / (1 / ESD_RESISTANCE + 1 / ESD_TIP_RESISTANCE);
 
 /** Surge integration span: 8 tail time constants (the open-circuit voltage is then 0.03 % of peak). */
 export const SURGE_SPAN = 8 * SURGE_TAU_TAIL;

@@ -14,7 +14,7 @@
  *   - rails: DC voltage sources;
  *   - AC / DC: SIN or DC source behind the source resistance;
  *   - surge: behavioural source V = peak/k · (exp(−t/τ2) − exp(−t/τ1)) behind 2 Ω + coupling;
- *   - ESD: 150 pF with IC = V, through 330 Ω, transient with UIC.
+ *   - ESD: 150 pF with IC = V through 330 Ω, in parallel with the tip branch (lib/stress/waveforms.ts), transient with UIC.
  * Every element has a 0 V source in series so its current can be read.
  */
 import { spawnSync } from 'node:child_process';
@@ -26,6 +26,8 @@ import type { Guard, StressCase } from '@/lib/stress/types';
 import {
   ESD_CAPACITANCE,
   ESD_RESISTANCE,
+  ESD_TIP_CAPACITANCE,
+  ESD_TIP_RESISTANCE,
   SURGE_GENERATOR_IMPEDANCE,
   SURGE_SHAPE_PEAK,
   SURGE_TAU_FRONT,
@@ -108,6 +110,8 @@ export function buildNetlist(
     case 'esd': {
       lines.push(`Cesd s 0 ${num(ESD_CAPACITANCE)} IC=${num(sign * stressCase.voltage)}`);
       lines.push(`Rsrc s sa ${num(ESD_RESISTANCE)}`);
+      lines.push(`Ctip s2 0 ${num(ESD_TIP_CAPACITANCE)} IC=${num(sign * stressCase.voltage)}`);
+      lines.push(`Rtip s2 sa ${num(ESD_TIP_RESISTANCE)}`);
       const end = options.pulseEnd ?? 2e-6;
       analysis = `.tran ${num(options.pulseStep ?? 50e-12)} ${num(end)} 0 ${num(options.pulseStep ?? 50e-12)} uic`;
       to = end;
