@@ -47,6 +47,8 @@ describe('versioned updates', () => {
     expect(second.status).toBe(409);
     expect(second.body.error).toMatch(/changed by someone else/i);
     expect(second.body.current).toMatchObject({ id, wireNumber: 'W-3101', version: read.version + 1, stripTag: 'X2' });
+    // Who saved first, from the audit log (the contract's optional changedBy).
+    expect(second.body.changedBy).toEqual({ name: 'Test engineer', at: expect.stringMatching(/^\d{4}-\d\d-\d\dT/) });
     expect(await snapshot()).toEqual(before);
   });
 
@@ -54,6 +56,8 @@ describe('versioned updates', () => {
     const staleCabinet = await call(cabinet.PATCH, { method: 'PATCH', params: { ...p, cabinetId: w.cabinetId }, body: { version: 7, name: 'x' } });
     expect(staleCabinet.status).toBe(409);
     expect(staleCabinet.body.current).toMatchObject({ id: w.cabinetId, tag: '+BH1', version: 0 });
+    // Never written through the API, so the log cannot say who: no name is better than a wrong one.
+    expect(staleCabinet.body.changedBy).toBeNull();
     const staleStrip = await call(strip.PATCH, { method: 'PATCH', params: { ...p, stripId: w.stripId }, body: { version: 3, name: 'x' } });
     expect(staleStrip.status).toBe(409);
     const staleChannel = await call(channel.PATCH, { method: 'PATCH', params: { ...p, channelId: w.channelId }, body: { version: 5, name: 'x' } });
@@ -149,7 +153,9 @@ describe('bulk terminal update', () => {
       },
     });
     expect(res.status).toBe(409);
-    expect(res.body.conflicts).toEqual([{ id: b.id, current: expect.objectContaining({ id: b.id, version: b.version, label: b.label }) }]);
+    expect(res.body.conflicts).toEqual([
+      { id: b.id, current: expect.objectContaining({ id: b.id, version: b.version, label: b.label }), changedBy: { name: 'Test engineer', at: expect.any(String) } },
+    ]);
     expect(await snapshot()).toEqual(before);
   });
 

@@ -6,6 +6,7 @@ import { getDb, type Attributes, type Cabinet } from '@/lib/db';
 import { ConflictError, ValidationError } from '@/lib/errors';
 import type { CabinetCreate, CabinetUpdate } from '@/lib/validation/cabinet';
 import { findCabinet, inTransaction, type ScheduleActor } from './scope';
+import { staleChecked } from './stale';
 
 export type CabinetRow = Attributes<Cabinet> & { stripCount: number; terminalCount: number; channelCount: number };
 
@@ -87,7 +88,7 @@ export async function updateCabinet(actor: ScheduleActor, cabinetId: number, upd
     const before = await findCabinet(actor.projectId, cabinetId, transaction);
     if (changes.tag !== undefined) await assertTagFree(actor.projectId, changes.tag, cabinetId, transaction);
     const diff = diffFields(before.get({ plain: true }), changes);
-    const after = await updateVersioned(models.Cabinet, cabinetId, version, changes, { transaction });
+    const after = await staleChecked('Cabinet', cabinetId, () => updateVersioned(models.Cabinet, cabinetId, version, changes, { transaction }), transaction);
     await logAction(
       { actorId: actor.userId, projectId: actor.projectId, action: 'cabinet.update', entity: 'Cabinet', entityId: cabinetId, detail: { changes: diff } },
       transaction,
@@ -116,7 +117,7 @@ export async function deleteCabinet(actor: ScheduleActor, cabinetId: number, ver
         (await toRows([cabinet], transaction))[0],
       );
     }
-    await destroyVersioned(models.Cabinet, cabinetId, version, { transaction });
+    await staleChecked('Cabinet', cabinetId, () => destroyVersioned(models.Cabinet, cabinetId, version, { transaction }), transaction);
     await logAction(
       { actorId: actor.userId, projectId: actor.projectId, action: 'cabinet.delete', entity: 'Cabinet', entityId: cabinetId, detail: { tag: cabinet.tag, name: cabinet.name } },
       transaction,

@@ -10,6 +10,7 @@ import { getDb, type Attributes, type Channel, type Strip, type Terminal } from 
 import { ConflictError, ValidationError } from '@/lib/errors';
 import type { ChannelCreate, ChannelUpdate } from '@/lib/validation/channel';
 import { findCabinet, findChannel, inTransaction, type ScheduleActor } from './scope';
+import { lastChange, StaleRecordError, staleChecked } from './stale';
 
 export type ChannelRow = Attributes<Channel> & {
   signalTerminalLabel: string | null;
@@ -137,7 +138,13 @@ export async function updateChannel(actor: ScheduleActor, channelId: number, upd
     }
     await checkReferences(actor.projectId, before.cabinetId, changes, transaction);
     const diff = diffFields(before.get({ plain: true }), changes);
-    const after = await updateVersioned(models.Channel, channelId, version, changes, { transaction });
+    const after = await staleChecked(
+      'Channel',
+      channelId,
+      () => updateVersioned(models.Channel, channelId, version, changes, { transaction }),
+      transaction,
+      async () => (await toRows([(await findChannel(actor.projectId, channelId, transaction))], transaction))[0],
+    );
     await syncTerminalLinks(after, transaction);
     await logAction(
       { actorId: actor.userId, projectId: actor.projectId, action: 'channel.update', entity: 'Channel', entityId: channelId, detail: { tag: after.tag, changes: diff } },
@@ -154,9 +161,10 @@ export async function deleteChannel(actor: ScheduleActor, channelId: number, ver
   await inTransaction(async (transaction) => {
     const channel = await findChannel(actor.projectId, channelId, transaction);
     if (channel.version !== version) {
-      throw new ConflictError(
+      throw new StaleRecordError(
         `Channel ${channel.tag} was changed by someone else (now version ${channel.version}, you read version ${version}). Reload it first.`,
         (await toRows([channel], transaction))[0],
+        await lastChange('Channel', channelId, channel.updatedAt, transaction),
       );
     }
     const linked = await models.Terminal.findAll({ where: { channelId }, transaction });

@@ -6,6 +6,7 @@ import { getDb, type Attributes, type GuardRecipe } from '@/lib/db';
 import { ConflictError, ValidationError } from '@/lib/errors';
 import type { GuardRecipeCreate, GuardRecipeUpdate } from '@/lib/validation/guard-recipe';
 import { findGuardRecipe, inTransaction, type ScheduleActor } from './scope';
+import { staleChecked } from './stale';
 
 export type GuardRecipeRow = Attributes<GuardRecipe> & { channelCount: number };
 
@@ -62,7 +63,7 @@ export async function updateGuardRecipe(actor: ScheduleActor, recipeId: number, 
     const before = await findGuardRecipe(actor.projectId, recipeId, transaction);
     if (changes.name !== undefined) await assertNameFree(actor.projectId, changes.name, recipeId, transaction);
     const diff = diffFields(before.get({ plain: true }), changes);
-    const after = await updateVersioned(models.GuardRecipe, recipeId, version, changes, { transaction });
+    const after = await staleChecked('GuardRecipe', recipeId, () => updateVersioned(models.GuardRecipe, recipeId, version, changes, { transaction }), transaction);
     await logAction(
       { actorId: actor.userId, projectId: actor.projectId, action: 'guard-recipe.update', entity: 'GuardRecipe', entityId: recipeId, detail: { name: after.name, changes: diff } },
       transaction,
@@ -85,7 +86,7 @@ export async function deleteGuardRecipe(actor: ScheduleActor, recipeId: number, 
         (await toRows([recipe], transaction))[0],
       );
     }
-    await destroyVersioned(models.GuardRecipe, recipeId, version, { transaction });
+    await staleChecked('GuardRecipe', recipeId, () => destroyVersioned(models.GuardRecipe, recipeId, version, { transaction }), transaction);
     await logAction(
       { actorId: actor.userId, projectId: actor.projectId, action: 'guard-recipe.delete', entity: 'GuardRecipe', entityId: recipeId, detail: { name: recipe.name } },
       transaction,

@@ -6,6 +6,7 @@ import { getDb, type Attributes, type Strip } from '@/lib/db';
 import { ConflictError, ValidationError } from '@/lib/errors';
 import type { StripCreate, StripUpdate } from '@/lib/validation/strip';
 import { findCabinet, findStrip, inTransaction, type ScheduleActor } from './scope';
+import { staleChecked } from './stale';
 
 export type StripRow = Attributes<Strip> & { terminalCount: number };
 
@@ -81,7 +82,7 @@ export async function updateStrip(actor: ScheduleActor, stripId: number, update:
     const before = await findStrip(actor.projectId, stripId, transaction);
     if (changes.tag !== undefined) await assertTagFree(before.cabinetId, changes.tag, stripId, transaction);
     const diff = diffFields(before.get({ plain: true }), changes);
-    const after = await updateVersioned(models.Strip, stripId, version, changes, { transaction });
+    const after = await staleChecked('Strip', stripId, () => updateVersioned(models.Strip, stripId, version, changes, { transaction }), transaction);
     await logAction(
       { actorId: actor.userId, projectId: actor.projectId, action: 'strip.update', entity: 'Strip', entityId: stripId, detail: { changes: diff } },
       transaction,
@@ -103,7 +104,7 @@ export async function deleteStrip(actor: ScheduleActor, stripId: number, version
         (await toRows([strip], transaction))[0],
       );
     }
-    await destroyVersioned(models.Strip, stripId, version, { transaction });
+    await staleChecked('Strip', stripId, () => destroyVersioned(models.Strip, stripId, version, { transaction }), transaction);
     await logAction(
       { actorId: actor.userId, projectId: actor.projectId, action: 'strip.delete', entity: 'Strip', entityId: stripId, detail: { cabinetId: strip.cabinetId, tag: strip.tag } },
       transaction,

@@ -14,6 +14,7 @@ import {
   type TerminalListQuery,
 } from '@/lib/validation/terminal';
 import { findCabinet, findTerminal, inTransaction, type ScheduleActor } from './scope';
+import { lastChange, StaleRecordError, staleChecked, type ChangedBy } from './stale';
 
 /** One schedule row: the terminal's fields plus the tags the table shows. */
 export type TerminalRow = Attributes<Terminal> & { stripTag: string; channelTag: string | null };
@@ -252,7 +253,7 @@ export interface TerminalChangeRequest {
 export class TerminalConflictError extends ConflictError {
   constructor(
     message: string,
-    readonly conflicts: { id: number; current: TerminalRow }[],
+    readonly conflicts: { id: number; current: TerminalRow; changedBy: ChangedBy | null }[],
   ) {
     super(message, conflicts[0]?.current);
   }
@@ -287,9 +288,14 @@ async function applyTerminalChanges(
       );
     }
 
-    const conflicts = requests
-      .filter((r) => byId.get(r.id)!.version !== r.version)
-      .map((r) => ({ id: r.id, current: toTerminalRow(byId.get(r.id)!) }));
+    const conflicts = await Promise.all(
+      requests
+        .filter((r) => byId.get(r.id)!.version !== r.version)
+        .map(async (r) => {
+          const current = toTerminalRow(byId.get(r.id)!);
+          return { id: r.id, current, changedBy: await lastChange('Terminal', r.id, current.updatedAt, transaction) };
+        }),
+    );
     if (conflicts.length > 0) {
       const list = conflicts.map((c) => `${c.current.label} (now version ${c.current.version})`).join(', ');
       throw new TerminalConflictError(
@@ -390,7 +396,9 @@ export async function updateTerminal(
     const [row] = await applyTerminalChanges(actor, [{ id: terminalId, version, changes }], (_i, field) => field, 'terminal.update');
     return row;
   } catch (err) {
-    if (err instanceof TerminalConflictError) throw new ConflictError(err.message, err.conflicts[0].current);
+    if (err instanceof TerminalConflictError) {
+      throw new StaleRecordError(err.message, err.conflicts[0].current, err.conflicts[0].changedBy);
+    }
     throw err;
   }
 }
@@ -411,15 +419,13 @@ export async function deleteTerminal(actor: ScheduleActor, terminalId: number, v
   const { models } = getDb();
   await inTransaction(async (transaction) => {
     const terminal = await findTerminal(actor.projectId, terminalId, transaction);
-    try {
-      await destroyVersioned(models.Terminal, terminalId, version, { transaction });
-    } catch (err) {
-      if (err instanceof ConflictError) {
-        const [current] = await loadTerminalRows(actor.projectId, [terminalId], transaction);
-        throw new ConflictError(err.message, current);
-      }
-      throw err;
-    }
+    await staleChecked(
+      'Terminal',
+      terminalId,
+      () => destroyVersioned(models.Terminal, terminalId, version, { transaction }),
+      transaction,
+      async () => (await loadTerminalRows(actor.projectId, [terminalId], transaction))[0],
+    );
     await logAction(
       {
         actorId: actor.userId,

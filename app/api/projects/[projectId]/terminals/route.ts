@@ -7,7 +7,7 @@ export const POST = projectRoute({ capability: 'schedule:write', body: terminalC
   NextResponse.json(await createTerminal({ userId: actor.user.id, projectId: actor.projectId }, body), { status: 201 }),
 );
 
-/** Bulk edit: all or nothing; a stale row answers 409 listing every conflict (the contract's `conflicts`). */
+/** Bulk edit: all or nothing; a stale row answers 409 listing every conflict (the contract's `conflicts`, each with `changedBy`). */
 export const PATCH = projectRoute(
   { capability: 'schedule:write', body: terminalBulkUpdateSchema },
   async ({ actor, body }) => {
