@@ -13,6 +13,8 @@ export interface ErrorBody {
   error: string;
   fieldErrors?: Record<string, string[]>;
   current?: unknown;
+  /** On a 409 for a stale version: who saved the newer one, when the audit log knows. */
+  changedBy?: unknown;
 }
 
 /** zod issues → { "rows.3.position": ["Must be 1 or more"] }, paths joined with dots. */
@@ -54,7 +56,11 @@ export function errorResponse(error: unknown): NextResponse<ErrorBody> {
     return NextResponse.json({ error: error.message }, { status: 404 });
   }
   if (error instanceof ConflictError) {
-    return NextResponse.json({ error: error.message, current: error.current }, { status: 409 });
+    const changedBy = (error as { changedBy?: unknown }).changedBy;
+    return NextResponse.json(
+      { error: error.message, current: error.current, ...(changedBy !== undefined ? { changedBy } : {}) },
+      { status: 409 },
+    );
   }
   if (error instanceof SyntaxError) {
     return NextResponse.json({ error: `The request body is not valid JSON: ${error.message}` }, { status: 400 });
