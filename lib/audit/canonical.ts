@@ -35,7 +35,8 @@ function pathText(path: readonly (string | number)[]): string {
 function normalise(value: unknown, path: (string | number)[]): unknown {
   switch (typeof value) {
     case 'number':
-      if (!Number.isFinite(value)) throw new RangeError(`${pathText(path)}: ${value} cannot be hashed (not a finite number)`);
+      if (!Number.isFinite(value))
+        throw new RangeError(`${pathText(path)}: ${value} cannot be hashed (not a finite number)`);
       return value === 0 ? 0 : value; // −0 → 0
     case 'string':
     case 'boolean':

@@ -48,7 +48,11 @@ export function lineToLineRatio(settings: ProjectSettings): { ratio: number; bas
   if (m) {
     const le = Number(m[1]);
     const ll = Number(m[2]);
-    if (le > 0 && ll > le) return { ratio: ll / le, basis: `line-to-line ${ll}/${le} of the ${settings.mainsSystem} system` };
+    if (le > 0 && ll > le)
+      return {
+        ratio: ll / le,
+        basis: `line-to-line ${ll}/${le} of the ${settings.mainsSystem} system`,
+      };
   }
   return { ratio: Math.sqrt(3), basis: 'line-to-line √3 × line-to-earth (three-phase)' };
 }
@@ -73,21 +77,33 @@ const HAZARD_NAMES: Readonly<Record<string, string>> = {
  *  - DC supply: the project's DC maximum for a 24 V supply (IEC 61131-2: 28.8 V), scaled in
  *    proportion for other nominal voltages. Other DC hazards: nominal × (1 + supply tolerance).
  */
-export function hazardCase(h: TerminalSnapshot, settings: ProjectSettings, appliedTo: HazardTerminal): HazardCaseResult {
+export function hazardCase(
+  h: TerminalSnapshot,
+  settings: ProjectSettings,
+  appliedTo: HazardTerminal,
+): HazardCaseResult {
   const kind = h.hazardKind ?? 'other';
   const isMains = kind === 'mains-line' || kind === 'mains-neutral';
   const nominal = h.nominalVoltage ?? (isMains ? settings.nominalVoltage : null);
   if (nominal === null || nominal === undefined || !Number.isFinite(nominal) || nominal <= 0) {
-    return { ok: false, reason: `hazard ${h.label} has no nominal voltage, so its stress case cannot be built` };
+    return {
+      ok: false,
+      reason: `hazard ${h.label} has no nominal voltage, so its stress case cannot be built`,
+    };
   }
   const sourceResistance = h.sourceImpedance ?? DEFAULT_SOURCE_RESISTANCE;
-  const sourceNote = h.sourceImpedance == null ? `; source ${DEFAULT_SOURCE_RESISTANCE} Ω assumed (stiff supply, no source)` : '';
+  const sourceNote =
+    h.sourceImpedance == null
+      ? `; source ${DEFAULT_SOURCE_RESISTANCE} Ω assumed (stiff supply, no source)`
+      : '';
   const name = HAZARD_NAMES[kind] ?? 'Hazard';
   const tolerance = settings.supplyTolerance;
 
   if (hazardCurrentKind(h) === 'dc') {
     const scaled = kind === 'dc-supply';
-    const voltage = tidy(scaled ? nominal * (settings.dcSupplyMax / 24) : nominal * (1 + tolerance));
+    const voltage = tidy(
+      scaled ? nominal * (settings.dcSupplyMax / 24) : nominal * (1 + tolerance),
+    );
     const basis = scaled
       ? nominal === 24 && Math.abs(settings.dcSupplyMax - 28.8) < 1e-9
         ? `IEC 61131-2: 24 V DC +20 % → 28.8 V`
@@ -117,7 +133,9 @@ export function hazardCase(h: TerminalSnapshot, settings: ProjectSettings, appli
     rms = tidy(nominal * ratio * (1 + tolerance));
     basis += `; ${llBasis} → ${rms} V rms`;
   }
-  if (kind === 'mains-neutral') basis += '; neutral taken at line potential (reversed feed or open neutral; common practice, no source)';
+  if (kind === 'mains-neutral')
+    basis +=
+      '; neutral taken at line potential (reversed feed or open neutral; common practice, no source)';
   const mode = lineLine ? 'line-line' : 'line-earth';
   return {
     ok: true,

@@ -77,7 +77,12 @@ function labelOf(x: Record<string, unknown>): string {
   return String(x.id);
 }
 
-function diffRecords(entity: SnapshotEntity, id: string, a: Record<string, unknown>, b: Record<string, unknown>): SnapshotChange | null {
+function diffRecords(
+  entity: SnapshotEntity,
+  id: string,
+  a: Record<string, unknown>,
+  b: Record<string, unknown>,
+): SnapshotChange | null {
   const fields: SnapshotChange['fields'] = [];
   for (const f of [...new Set([...Object.keys(a), ...Object.keys(b)])].sort()) {
     const va = a[f] ?? null;
@@ -88,7 +93,10 @@ function diffRecords(entity: SnapshotEntity, id: string, a: Record<string, unkno
 }
 
 /** The input changes between two snapshots, entity by entity and field by field. */
-export function diffSnapshots(previous: ProjectSnapshot, current: ProjectSnapshot): SnapshotChange[] {
+export function diffSnapshots(
+  previous: ProjectSnapshot,
+  current: ProjectSnapshot,
+): SnapshotChange[] {
   const out: SnapshotChange[] = [];
   const lists: [SnapshotEntity, keyof ProjectSnapshot][] = [
     ['cabinet', 'cabinets'],
@@ -98,8 +106,12 @@ export function diffSnapshots(previous: ProjectSnapshot, current: ProjectSnapsho
     ['guard', 'guards'],
   ];
   for (const [entity, field] of lists) {
-    const a = new Map((previous[field] as unknown as Record<string, unknown>[]).map((x) => [String(x.id), x]));
-    const b = new Map((current[field] as unknown as Record<string, unknown>[]).map((x) => [String(x.id), x]));
+    const a = new Map(
+      (previous[field] as unknown as Record<string, unknown>[]).map((x) => [String(x.id), x]),
+    );
+    const b = new Map(
+      (current[field] as unknown as Record<string, unknown>[]).map((x) => [String(x.id), x]),
+    );
     for (const id of [...new Set([...a.keys(), ...b.keys()])].sort()) {
       const x = a.get(id);
       const y = b.get(id);
@@ -111,7 +123,12 @@ export function diffSnapshots(previous: ProjectSnapshot, current: ProjectSnapsho
       }
     }
   }
-  const s = diffRecords('settings', 'settings', previous.settings as unknown as Record<string, unknown>, current.settings as unknown as Record<string, unknown>);
+  const s = diffRecords(
+    'settings',
+    'settings',
+    previous.settings as unknown as Record<string, unknown>,
+    current.settings as unknown as Record<string, unknown>,
+  );
   if (s) out.push({ ...s, label: 'project settings' });
   return out;
 }

@@ -1,9 +1,21 @@
 import { mapExposures } from '../exposure/map';
 import { checkSegregation } from '../exposure/segregation';
 import { checkWireColours } from '../exposure/colour';
-import { MECHANISMS, type Exposure, type Mechanism, type TerminalSnapshot } from '../exposure/types';
+import {
+  MECHANISMS,
+  type Exposure,
+  type Mechanism,
+  type TerminalSnapshot,
+} from '../exposure/types';
 import { applyGuardOverrides } from '../presets/overrides';
-import { VERDICT_SEVERITY, type Guard, type HazardTerminal, type StressConditions, type StressResult, type Verdict } from '../stress/types';
+import {
+  VERDICT_SEVERITY,
+  type Guard,
+  type HazardTerminal,
+  type StressConditions,
+  type StressResult,
+  type Verdict,
+} from '../stress/types';
 import { canonicalJson } from './canonical';
 import { hazardCase, transientCases, type HazardCaseResult } from './cases';
 import { snapshotHash, AUDIT_VERSION } from './hash';
@@ -22,7 +34,13 @@ import type {
 } from './types';
 import { assertAuditable } from './validate';
 
-const zeroVerdicts = (): Record<Verdict, number> => ({ holds: 0, marginal: 0, fails: 0, unprotected: 0, incomplete: 0 });
+const zeroVerdicts = (): Record<Verdict, number> => ({
+  holds: 0,
+  marginal: 0,
+  fails: 0,
+  unprotected: 0,
+  incomplete: 0,
+});
 
 interface PreparedHazardCase {
   built: HazardCaseResult;
@@ -32,7 +50,9 @@ interface PreparedHazardCase {
   hazardRef: string;
 }
 
-type Solved = { ok: true; result: StressResult; utilisation: number; margin: number | null } | { ok: false; reason: string };
+type Solved =
+  | { ok: true; result: StressResult; utilisation: number; margin: number | null }
+  | { ok: false; reason: string };
 
 function compareStrings(a: string, b: string): number {
   return a < b ? -1 : a > b ? 1 : 0;
@@ -43,7 +63,11 @@ function compareStrings(a: string, b: string): number {
  * AuditInputError and computes nothing), maps exposures, builds every channel's stress cases,
  * solves each distinct (guard, case, terminal) once and judges every finding.
  */
-export function runAuditWith(snapshot: ProjectSnapshot, solve: StressSolver, options: AuditOptions = {}): AuditResult {
+export function runAuditWith(
+  snapshot: ProjectSnapshot,
+  solve: StressSolver,
+  options: AuditOptions = {},
+): AuditResult {
   const report = options.onProgress ?? (() => {});
   assertAuditable(snapshot);
   const settings = snapshot.settings;
@@ -57,12 +81,23 @@ export function runAuditWith(snapshot: ProjectSnapshot, solve: StressSolver, opt
   const terminalById = new Map(snapshot.terminals.map((t) => [t.id, t]));
   const cabinetTagOfStrip = new Map<string, string>();
   const cabinetTag = new Map(snapshot.cabinets.map((c) => [c.id, c.tag]));
-  for (const s of snapshot.strips) cabinetTagOfStrip.set(s.id, cabinetTag.get(s.cabinetId) ?? s.cabinetId);
+  for (const s of snapshot.strips)
+    cabinetTagOfStrip.set(s.id, cabinetTag.get(s.cabinetId) ?? s.cabinetId);
   const recipes = new Map(snapshot.guards.map((g) => [g.id, g.guard]));
 
   const conditions: Record<HazardTerminal, StressConditions> = {
-    signal: { ambientC: settings.ambientC, powerDerating: settings.powerDerating, voltageDerating: settings.voltageDerating, appliedTo: 'signal' },
-    return: { ambientC: settings.ambientC, powerDerating: settings.powerDerating, voltageDerating: settings.voltageDerating, appliedTo: 'return' },
+    signal: {
+      ambientC: settings.ambientC,
+      powerDerating: settings.powerDerating,
+      voltageDerating: settings.voltageDerating,
+      appliedTo: 'signal',
+    },
+    return: {
+      ambientC: settings.ambientC,
+      powerDerating: settings.powerDerating,
+      voltageDerating: settings.voltageDerating,
+      appliedTo: 'return',
+    },
   };
   const transients = transientCases(settings);
   const transientKeys = transients.map((c) => `${JSON.stringify(c.stress)}\u0000${c.appliedTo}`);
@@ -77,7 +112,9 @@ export function runAuditWith(snapshot: ProjectSnapshot, solve: StressSolver, opt
     if (c.guardRecipeId == null) return null;
     const overrides = c.guardOverrides;
     const hasOverrides = overrides != null && canonicalJson(overrides) !== '{}';
-    const key = hasOverrides ? `${c.guardRecipeId}\u0000${canonicalJson(overrides)}` : c.guardRecipeId;
+    const key = hasOverrides
+      ? `${c.guardRecipeId}\u0000${canonicalJson(overrides)}`
+      : c.guardRecipeId;
     let guard = guards.get(key);
     if (!guard) {
       const recipe = recipes.get(c.guardRecipeId)!;
@@ -88,7 +125,11 @@ export function runAuditWith(snapshot: ProjectSnapshot, solve: StressSolver, opt
     return { key, guard };
   };
 
-  const solveCached = (g: { key: string; guard: Guard }, ac: AuditCase, caseKey: string): Solved => {
+  const solveCached = (
+    g: { key: string; guard: Guard },
+    ac: AuditCase,
+    caseKey: string,
+  ): Solved => {
     const key = `${g.key}\u0000${caseKey}`;
     let s = solved.get(key);
     if (!s) {
@@ -97,7 +138,10 @@ export function runAuditWith(snapshot: ProjectSnapshot, solve: StressSolver, opt
         const result = solve(g.guard, ac.stress, conditions[ac.appliedTo]);
         s = { ok: true, result, utilisation: utilisationOf(result), margin: marginOf(result) };
       } catch (err) {
-        s = { ok: false, reason: `the engine could not solve ${ac.label}: ${err instanceof Error ? err.message : String(err)}` };
+        s = {
+          ok: false,
+          reason: `the engine could not solve ${ac.label}: ${err instanceof Error ? err.message : String(err)}`,
+        };
       }
       solved.set(key, s);
     }
@@ -109,7 +153,17 @@ export function runAuditWith(snapshot: ProjectSnapshot, solve: StressSolver, opt
     g: { key: string; guard: Guard } | null,
     ac: AuditCase,
     caseKey: string,
-  ): Pick<Finding, 'verdict' | 'reason' | 'margin' | 'utilisation' | 'elements' | 'input' | 'rails' | 'sourcePeakCurrent'> => {
+  ): Pick<
+    Finding,
+    | 'verdict'
+    | 'reason'
+    | 'margin'
+    | 'utilisation'
+    | 'elements'
+    | 'input'
+    | 'rails'
+    | 'sourcePeakCurrent'
+  > => {
     if (!g) {
       return {
         verdict: 'unprotected',
@@ -124,7 +178,16 @@ export function runAuditWith(snapshot: ProjectSnapshot, solve: StressSolver, opt
     }
     const s = solveCached(g, ac, caseKey);
     if (!s.ok) {
-      return { verdict: 'incomplete', reason: s.reason, margin: null, utilisation: 0, elements: [], input: null, rails: [], sourcePeakCurrent: null };
+      return {
+        verdict: 'incomplete',
+        reason: s.reason,
+        margin: null,
+        utilisation: 0,
+        elements: [],
+        input: null,
+        rails: [],
+        sourcePeakCurrent: null,
+      };
     }
     return {
       verdict: s.result.verdict,
@@ -140,8 +203,13 @@ export function runAuditWith(snapshot: ProjectSnapshot, solve: StressSolver, opt
 
   const findings: Finding[] = [];
   const channelAudits: ChannelAudit[] = [];
-  const findingsByMechanism: Record<Mechanism | 'transient', number> = { transient: 0, ...(Object.fromEntries(MECHANISMS.map((m) => [m, 0])) as Record<Mechanism, number>) };
-  const channels = [...snapshot.channels].sort((a, b) => compareStrings(a.tag, b.tag) || compareStrings(a.id, b.id));
+  const findingsByMechanism: Record<Mechanism | 'transient', number> = {
+    transient: 0,
+    ...(Object.fromEntries(MECHANISMS.map((m) => [m, 0])) as Record<Mechanism, number>),
+  };
+  const channels = [...snapshot.channels].sort(
+    (a, b) => compareStrings(a.tag, b.tag) || compareStrings(a.id, b.id),
+  );
   const step = Math.max(1, Math.ceil(channels.length / 100));
   report({ phase: 'stress', done: 0, total: channels.length });
 
@@ -180,7 +248,11 @@ export function runAuditWith(snapshot: ProjectSnapshot, solve: StressSolver, opt
         let hc = hazardCases.get(hcKey);
         if (!hc) {
           const built = hazardCase(hazard, settings, appliedTo);
-          hc = { built, caseKey: built.ok ? `${JSON.stringify(built.case.stress)}\u0000${appliedTo}` : '', hazardRef: `${cabinetTagOfStrip.get(hazard.stripId) ?? ''}/${hazard.label}` };
+          hc = {
+            built,
+            caseKey: built.ok ? `${JSON.stringify(built.case.stress)}\u0000${appliedTo}` : '',
+            hazardRef: `${cabinetTagOfStrip.get(hazard.stripId) ?? ''}/${hazard.label}`,
+          };
           hazardCases.set(hcKey, hc);
         }
         const finding = exposureFinding(channel, g, target, hazard, e, appliedTo, hc, judged);
@@ -188,11 +260,17 @@ export function runAuditWith(snapshot: ProjectSnapshot, solve: StressSolver, opt
         findingsByMechanism[e.mechanism]++;
       }
     }
-    exposed.sort((a, b) => b.finding.score! - a.finding.score! || b.peak - a.peak || compareStrings(a.finding.key, b.finding.key));
+    exposed.sort(
+      (a, b) =>
+        b.finding.score! - a.finding.score! ||
+        b.peak - a.peak ||
+        compareStrings(a.finding.key, b.finding.key),
+    );
     for (const x of exposed) own.push(x.finding);
 
     let worst: Verdict = 'holds';
-    for (const f of own) if (VERDICT_SEVERITY[f.verdict] > VERDICT_SEVERITY[worst]) worst = f.verdict;
+    for (const f of own)
+      if (VERDICT_SEVERITY[f.verdict] > VERDICT_SEVERITY[worst]) worst = f.verdict;
     const top = exposed[0]?.finding;
     const nearestHazard: NearestHazard | null = top
       ? {
@@ -206,9 +284,16 @@ export function runAuditWith(snapshot: ProjectSnapshot, solve: StressSolver, opt
           score: top.score!,
         }
       : null;
-    channelAudits.push({ channelId: channel.id, tag: channel.tag, worstVerdict: worst, exposureCount: exposed.length, nearestHazard });
+    channelAudits.push({
+      channelId: channel.id,
+      tag: channel.tag,
+      worstVerdict: worst,
+      exposureCount: exposed.length,
+      nearestHazard,
+    });
     for (const f of own) findings.push(f);
-    if ((n + 1) % step === 0 || n + 1 === channels.length) report({ phase: 'stress', done: n + 1, total: channels.length });
+    if ((n + 1) % step === 0 || n + 1 === channels.length)
+      report({ phase: 'stress', done: n + 1, total: channels.length });
   });
 
   report({ phase: 'checks', done: 0, total: 1 });
@@ -232,7 +317,15 @@ export function runAuditWith(snapshot: ProjectSnapshot, solve: StressSolver, opt
   for (const c of channelAudits) summary.channelsByVerdict[c.worstVerdict]++;
   for (const c of checks) summary.checksByKind[c.kind]++;
   report({ phase: 'done', done: 1, total: 1 });
-  return { version: AUDIT_VERSION, hash, findings, checks, channels: channelAudits, exposures, summary };
+  return {
+    version: AUDIT_VERSION,
+    hash,
+    findings,
+    checks,
+    channels: channelAudits,
+    exposures,
+    summary,
+  };
 }
 
 function exposureFinding(
@@ -248,7 +341,17 @@ function exposureFinding(
     g: { key: string; guard: Guard } | null,
     ac: AuditCase,
     caseKey: string,
-  ) => Pick<Finding, 'verdict' | 'reason' | 'margin' | 'utilisation' | 'elements' | 'input' | 'rails' | 'sourcePeakCurrent'>,
+  ) => Pick<
+    Finding,
+    | 'verdict'
+    | 'reason'
+    | 'margin'
+    | 'utilisation'
+    | 'elements'
+    | 'input'
+    | 'rails'
+    | 'sourcePeakCurrent'
+  >,
 ): Finding {
   const built = hc.built;
   const caseId = built.ok ? built.case.id : `${hazard.hazardKind ?? 'other'}:unknown`;

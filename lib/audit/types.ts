@@ -180,7 +180,11 @@ export interface AuditProgress {
   total: number;
 }
 
-export type StressSolver = (guard: Guard, stressCase: StressCase, conditions: StressConditions) => StressResult;
+export type StressSolver = (
+  guard: Guard,
+  stressCase: StressCase,
+  conditions: StressConditions,
+) => StressResult;
 
 export interface AuditOptions {
   onProgress?: (p: AuditProgress) => void;

@@ -1,4 +1,10 @@
-import type { CheckFinding, CheckSeverity, StripSnapshot, TerminalSnapshot, WireColourConvention } from './types';
+import type {
+  CheckFinding,
+  CheckSeverity,
+  StripSnapshot,
+  TerminalSnapshot,
+  WireColourConvention,
+} from './types';
 
 /** Canonical colours the check understands. Two-part names are insulation with a stripe. */
 export type WireColour =
@@ -21,19 +27,34 @@ export type WireColour =
 
 /** Words and IEC 60757 letter codes (memory) for each single colour. */
 const WORDS: Readonly<Record<string, WireColour>> = {
-  black: 'black', bk: 'black',
-  brown: 'brown', bn: 'brown',
-  red: 'red', rd: 'red',
-  orange: 'orange', og: 'orange',
-  yellow: 'yellow', ye: 'yellow',
-  green: 'green', gn: 'green',
-  blue: 'blue', bu: 'blue',
-  lightblue: 'light-blue', lbu: 'light-blue',
-  violet: 'violet', vt: 'violet', purple: 'violet',
-  grey: 'grey', gray: 'grey', gy: 'grey',
-  white: 'white', wh: 'white',
-  pink: 'pink', pk: 'pink',
-  turquoise: 'turquoise', tq: 'turquoise',
+  black: 'black',
+  bk: 'black',
+  brown: 'brown',
+  bn: 'brown',
+  red: 'red',
+  rd: 'red',
+  orange: 'orange',
+  og: 'orange',
+  yellow: 'yellow',
+  ye: 'yellow',
+  green: 'green',
+  gn: 'green',
+  blue: 'blue',
+  bu: 'blue',
+  lightblue: 'light-blue',
+  lbu: 'light-blue',
+  violet: 'violet',
+  vt: 'violet',
+  purple: 'violet',
+  grey: 'grey',
+  gray: 'grey',
+  gy: 'grey',
+  white: 'white',
+  wh: 'white',
+  pink: 'pink',
+  pk: 'pink',
+  turquoise: 'turquoise',
+  tq: 'turquoise',
   gnye: 'green-yellow',
 };
 
@@ -74,14 +95,27 @@ const IEC = 'IEC 60204-1';
 const NFPA = 'NFPA 79 (13.2.x or 14.2.x by edition ⚠)';
 
 /** The rule for one terminal under a convention, or null when the convention says nothing. */
-export function colourRuleFor(t: TerminalSnapshot, convention: WireColourConvention): ColourRule | null {
+export function colourRuleFor(
+  t: TerminalSnapshot,
+  convention: WireColourConvention,
+): ColourRule | null {
   if (convention === 'none') return null;
   const ac = t.currentKind === 'ac';
   const iec = convention === 'iec60204-1';
   if (t.circuitClass === 'earth') {
     return iec
-      ? { allowed: ['green-yellow'], clause: `${IEC} 13.2.2`, severity: 'violation', circuit: 'protective conductor' }
-      : { allowed: ['green', 'green-yellow'], clause: NFPA, severity: 'violation', circuit: 'equipment grounding conductor' };
+      ? {
+          allowed: ['green-yellow'],
+          clause: `${IEC} 13.2.2`,
+          severity: 'violation',
+          circuit: 'protective conductor',
+        }
+      : {
+          allowed: ['green', 'green-yellow'],
+          clause: NFPA,
+          severity: 'violation',
+          circuit: 'equipment grounding conductor',
+        };
   }
   if (t.circuitClass === 'hazard') {
     switch (t.hazardKind) {
@@ -89,45 +123,115 @@ export function colourRuleFor(t: TerminalSnapshot, convention: WireColourConvent
       case 'motor-output':
       case 'heater-output':
         return iec
-          ? { allowed: ['black'], clause: `${IEC} 13.2.4 (recommended)`, severity: 'advisory', circuit: 'AC/DC power circuit' }
-          : { allowed: ['black'], clause: NFPA, severity: 'violation', circuit: 'ungrounded power conductor' };
+          ? {
+              allowed: ['black'],
+              clause: `${IEC} 13.2.4 (recommended)`,
+              severity: 'advisory',
+              circuit: 'AC/DC power circuit',
+            }
+          : {
+              allowed: ['black'],
+              clause: NFPA,
+              severity: 'violation',
+              circuit: 'ungrounded power conductor',
+            };
       case 'mains-neutral':
         return iec
-          ? { allowed: ['light-blue', 'blue'], clause: `${IEC} 13.2.3 (light blue recommended)`, severity: 'advisory', circuit: 'neutral conductor' }
-          : { allowed: ['white', 'grey'], clause: NFPA, severity: 'violation', circuit: 'grounded AC conductor' };
+          ? {
+              allowed: ['light-blue', 'blue'],
+              clause: `${IEC} 13.2.3 (light blue recommended)`,
+              severity: 'advisory',
+              circuit: 'neutral conductor',
+            }
+          : {
+              allowed: ['white', 'grey'],
+              clause: NFPA,
+              severity: 'violation',
+              circuit: 'grounded AC conductor',
+            };
       case 'dc-supply':
         return iec
-          ? { allowed: ['blue'], clause: `${IEC} 13.2.4 (recommended)`, severity: 'advisory', circuit: 'DC control circuit' }
-          : { allowed: ['blue'], clause: NFPA, severity: 'violation', circuit: 'ungrounded DC control conductor' };
+          ? {
+              allowed: ['blue'],
+              clause: `${IEC} 13.2.4 (recommended)`,
+              severity: 'advisory',
+              circuit: 'DC control circuit',
+            }
+          : {
+              allowed: ['blue'],
+              clause: NFPA,
+              severity: 'violation',
+              circuit: 'ungrounded DC control conductor',
+            };
       default:
         return null;
     }
   }
   if (t.circuitClass === 'sensitive') {
     return iec
-      ? { allowed: [ac ? 'red' : 'blue'], clause: `${IEC} 13.2.4 (recommended)`, severity: 'advisory', circuit: ac ? 'AC control circuit' : 'DC control circuit' }
-      : { allowed: [ac ? 'red' : 'blue'], clause: NFPA, severity: 'violation', circuit: ac ? 'ungrounded AC control conductor' : 'ungrounded DC control conductor' };
+      ? {
+          allowed: [ac ? 'red' : 'blue'],
+          clause: `${IEC} 13.2.4 (recommended)`,
+          severity: 'advisory',
+          circuit: ac ? 'AC control circuit' : 'DC control circuit',
+        }
+      : {
+          allowed: [ac ? 'red' : 'blue'],
+          clause: NFPA,
+          severity: 'violation',
+          circuit: ac ? 'ungrounded AC control conductor' : 'ungrounded DC control conductor',
+        };
   }
   if (t.circuitClass === 'return') {
     if (iec) {
-      return { allowed: [ac ? 'red' : 'blue'], clause: `${IEC} 13.2.4 (recommended)`, severity: 'advisory', circuit: ac ? 'AC control circuit' : 'DC control circuit' };
+      return {
+        allowed: [ac ? 'red' : 'blue'],
+        clause: `${IEC} 13.2.4 (recommended)`,
+        severity: 'advisory',
+        circuit: ac ? 'AC control circuit' : 'DC control circuit',
+      };
     }
     // Grounded when the common is earthed (the usual case), ungrounded otherwise: accept both.
     return ac
-      ? { allowed: ['white', 'grey', 'red'], clause: NFPA, severity: 'violation', circuit: 'AC control return' }
-      : { allowed: ['white-blue', 'blue'], clause: NFPA, severity: 'violation', circuit: 'DC control return' };
+      ? {
+          allowed: ['white', 'grey', 'red'],
+          clause: NFPA,
+          severity: 'violation',
+          circuit: 'AC control return',
+        }
+      : {
+          allowed: ['white-blue', 'blue'],
+          clause: NFPA,
+          severity: 'violation',
+          circuit: 'DC control return',
+        };
   }
   return null;
 }
 
 /** Green-and-yellow (IEC) or green / green-and-yellow (NFPA) on anything but earth. */
-function reservedColourMisuse(t: TerminalSnapshot, colour: WireColour, convention: WireColourConvention): ColourRule | null {
-  if (t.circuitClass === 'earth' || t.circuitClass === 'spare' || t.circuitClass === 'barrier') return null;
+function reservedColourMisuse(
+  t: TerminalSnapshot,
+  colour: WireColour,
+  convention: WireColourConvention,
+): ColourRule | null {
+  if (t.circuitClass === 'earth' || t.circuitClass === 'spare' || t.circuitClass === 'barrier')
+    return null;
   if (convention === 'iec60204-1' && colour === 'green-yellow') {
-    return { allowed: [], clause: `${IEC} 13.2.2`, severity: 'violation', circuit: 'protective conductor only' };
+    return {
+      allowed: [],
+      clause: `${IEC} 13.2.2`,
+      severity: 'violation',
+      circuit: 'protective conductor only',
+    };
   }
   if (convention === 'nfpa79' && (colour === 'green' || colour === 'green-yellow')) {
-    return { allowed: [], clause: NFPA, severity: 'violation', circuit: 'equipment grounding conductor only' };
+    return {
+      allowed: [],
+      clause: NFPA,
+      severity: 'violation',
+      circuit: 'equipment grounding conductor only',
+    };
   }
   return null;
 }
@@ -149,7 +253,11 @@ export function checkWireColours(
     const colour = parseWireColour(t.wireColour);
     if (colour === null) {
       out.push({
-        kind: 'colour', key, severity: 'advisory', stripId: t.stripId, terminalIds: [t.id],
+        kind: 'colour',
+        key,
+        severity: 'advisory',
+        stripId: t.stripId,
+        terminalIds: [t.id],
         clause: 'IEC 60757 colour codes (memory)',
         message: `${t.label}: wire colour "${t.wireColour}" is not a colour the check understands`,
       });
@@ -158,7 +266,11 @@ export function checkWireColours(
     const reserved = reservedColourMisuse(t, colour, convention);
     if (reserved) {
       out.push({
-        kind: 'colour', key, severity: reserved.severity, stripId: t.stripId, terminalIds: [t.id],
+        kind: 'colour',
+        key,
+        severity: reserved.severity,
+        stripId: t.stripId,
+        terminalIds: [t.id],
         clause: reserved.clause,
         message: `${t.label} (${t.circuitClass}) is ${colour}: that colour is reserved for the ${reserved.circuit}`,
       });
@@ -167,7 +279,11 @@ export function checkWireColours(
     const rule = colourRuleFor(t, convention);
     if (!rule || rule.allowed.includes(colour)) continue;
     out.push({
-      kind: 'colour', key, severity: rule.severity, stripId: t.stripId, terminalIds: [t.id],
+      kind: 'colour',
+      key,
+      severity: rule.severity,
+      stripId: t.stripId,
+      terminalIds: [t.id],
       clause: rule.clause,
       message: `${t.label} (${rule.circuit}) is ${colour}; ${rule.clause} calls for ${rule.allowed.join(' or ')}`,
     });

@@ -37,7 +37,13 @@ const CONFUSABLE: ReadonlyMap<string, readonly string[]> = (() => {
   return m;
 })();
 
-const ROTATED: Readonly<Record<string, string>> = { '0': '0', '1': '1', '8': '8', '6': '9', '9': '6' };
+const ROTATED: Readonly<Record<string, string>> = {
+  '0': '0',
+  '1': '1',
+  '8': '8',
+  '6': '9',
+  '9': '6',
+};
 
 export function normaliseWireNumber(raw: string | null | undefined): string | null {
   if (raw === null || raw === undefined) return null;

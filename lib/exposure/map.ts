@@ -1,4 +1,10 @@
-import { hazardCurrentKind, isHazard, isTargetClass, nominalPeakVoltage, terminalNumberOf } from './hazard';
+import {
+  hazardCurrentKind,
+  isHazard,
+  isTargetClass,
+  nominalPeakVoltage,
+  terminalNumberOf,
+} from './hazard';
 import { forEachSimilarWireNumber, normaliseWireNumber } from './lookalike';
 import { barrierBetween, buildStripLayout, lowerBound, type StripLayout } from './strip-layout';
 import {
@@ -47,7 +53,9 @@ export function resolveWeights(partial?: Partial<LikelihoodWeights>): Likelihood
     const w = partial?.[c];
     if (w === undefined) continue;
     if (typeof w !== 'number' || !Number.isFinite(w) || w < 0) {
-      throw new RangeError(`likelihood weight "${c}" must be a finite number ≥ 0, got ${String(w)}`);
+      throw new RangeError(
+        `likelihood weight "${c}" must be a finite number ≥ 0, got ${String(w)}`,
+      );
     }
     weights[c] = w;
   }
@@ -61,7 +69,8 @@ function lowerClass(c: LikelihoodClass): LikelihoodClass {
 export function describeHazard(h: TerminalSnapshot): string {
   const kind = h.hazardKind ?? 'hazard';
   const v = h.nominalVoltage;
-  const volts = v === null || v === undefined ? 'voltage not given' : `${v} V ${hazardCurrentKind(h)}`;
+  const volts =
+    v === null || v === undefined ? 'voltage not given' : `${v} V ${hazardCurrentKind(h)}`;
   return `${kind} ${volts}`;
 }
 
@@ -86,7 +95,8 @@ function push<K, V>(m: Map<K, V[]>, k: K, v: V): void {
   else m.set(k, [v]);
 }
 
-const present = (s: string | null | undefined): s is string => s !== null && s !== undefined && s !== '';
+const present = (s: string | null | undefined): s is string =>
+  s !== null && s !== undefined && s !== '';
 
 export function buildWiringIndex(w: WiringSnapshot): WiringIndex {
   const terminalById = new Map<string, TerminalSnapshot>();
@@ -137,7 +147,14 @@ export function buildWiringIndex(w: WiringSnapshot): WiringIndex {
   return idx;
 }
 
-type Emit = (target: TerminalSnapshot, hazard: TerminalSnapshot, route: ExposureRoute, reason: string, cls?: LikelihoodClass, distance?: number) => void;
+type Emit = (
+  target: TerminalSnapshot,
+  hazard: TerminalSnapshot,
+  route: ExposureRoute,
+  reason: string,
+  cls?: LikelihoodClass,
+  distance?: number,
+) => void;
 
 const MECHANISM_OF_ROUTE: Readonly<Record<ExposureRoute, Mechanism>> = {
   adjacent: 'neighbour',
@@ -158,7 +175,12 @@ export function mechanismOfRoute(route: ExposureRoute): Mechanism {
 }
 
 /** Neighbour exposures of one target: positions ±1…±3 on its strip, no barrier between. */
-export function neighbourHazards(target: TerminalSnapshot, layout: StripLayout, emit: Emit, stripLabel: string): void {
+export function neighbourHazards(
+  target: TerminalSnapshot,
+  layout: StripLayout,
+  emit: Emit,
+  stripLabel: string,
+): void {
   for (let d = -3; d <= 3; d++) {
     if (d === 0) continue;
     const at = layout.byPosition.get(target.position + d);
@@ -213,7 +235,12 @@ export function bridgePairs(layout: StripLayout, stripLabel: string): BridgePair
     const targets = members.filter(isTargetClass);
     for (const t of targets) {
       for (const h of hazards) {
-        out.push({ target: t, hazard: h, route: 'bridge-member', reason: `${h.label} (${describeHazard(h)}) is jumpered to ${t.label} by bridge ${group} on strip ${stripLabel}` });
+        out.push({
+          target: t,
+          hazard: h,
+          route: 'bridge-member',
+          reason: `${h.label} (${describeHazard(h)}) is jumpered to ${t.label} by bridge ${group} on strip ${stripLabel}`,
+        });
       }
     }
     if (hazards.length === 0 && targets.length === 0) continue;
@@ -229,7 +256,14 @@ export function bridgePairs(layout: StripLayout, stripLabel: string): BridgePair
       const i = lowerBound(positions, p);
       const above = positions[i];
       const below = positions[i - 1];
-      const nearest = above === undefined ? below! : below === undefined ? above : p - below <= above - p ? below : above;
+      const nearest =
+        above === undefined
+          ? below!
+          : below === undefined
+            ? above
+            : p - below <= above - p
+              ? below
+              : above;
       if (barrierBetween(layout, p, nearest)) continue;
       const route: ExposureRoute = p < first || p > last ? 'bridge-end' : 'bridge-span';
       const how = route === 'bridge-end' ? 'one position beyond the end of' : 'under the span of';
@@ -238,11 +272,21 @@ export function bridgePairs(layout: StripLayout, stripLabel: string): BridgePair
         if (combLevel !== null && x.level != null && x.level !== combLevel) continue;
         if (isTargetClass(x)) {
           for (const h of hazards) {
-            out.push({ target: x, hazard: h, route, reason: `${x.label} is ${how} bridge ${group} that carries ${h.label} (${describeHazard(h)}) on strip ${stripLabel}` });
+            out.push({
+              target: x,
+              hazard: h,
+              route,
+              reason: `${x.label} is ${how} bridge ${group} that carries ${h.label} (${describeHazard(h)}) on strip ${stripLabel}`,
+            });
           }
         } else if (isHazard(x)) {
           for (const t of targets) {
-            out.push({ target: t, hazard: x, route, reason: `${x.label} (${describeHazard(x)}) is ${how} bridge ${group} that joins ${t.label} on strip ${stripLabel}` });
+            out.push({
+              target: t,
+              hazard: x,
+              route,
+              reason: `${x.label} (${describeHazard(x)}) is ${how} bridge ${group} that joins ${t.label} on strip ${stripLabel}`,
+            });
           }
         }
       }
@@ -308,17 +352,32 @@ export function mapExposures(w: WiringSnapshot, options: ExposureOptions = {}): 
         : undefined;
     for (const h of stacked ?? []) {
       if ((h.level ?? null) === (t.level ?? null)) continue;
-      emit(t, h, 'other-level', `${h.label} (${describeHazard(h)}) is level ${h.level ?? '?'} of the block that holds ${t.label} (level ${t.level ?? '?'})`);
+      emit(
+        t,
+        h,
+        'other-level',
+        `${h.label} (${describeHazard(h)}) is level ${h.level ?? '?'} of the block that holds ${t.label} (level ${t.level ?? '?'})`,
+      );
     }
 
     if (present(t.cableId)) {
       for (const h of idx.hazardsByCable.get(t.cableId) ?? []) {
-        emit(t, h, 'cable-core', `${h.label} (${describeHazard(h)}) is core ${h.cableCore ?? '?'} of cable ${t.cableId}, which also carries ${t.label} (core ${t.cableCore ?? '?'})`);
+        emit(
+          t,
+          h,
+          'cable-core',
+          `${h.label} (${describeHazard(h)}) is core ${h.cableCore ?? '?'} of cable ${t.cableId}, which also carries ${t.label} (core ${t.cableCore ?? '?'})`,
+        );
       }
     }
     if (present(t.connector)) {
       for (const h of idx.hazardsByConnector.get(`${cabinet}\u0000${t.connector}`) ?? []) {
-        emit(t, h, 'connector-pin', `${h.label} (${describeHazard(h)}) shares connector ${t.connector} with ${t.label}`);
+        emit(
+          t,
+          h,
+          'connector-pin',
+          `${h.label} (${describeHazard(h)}) shares connector ${t.connector} with ${t.label}`,
+        );
       }
     }
 
@@ -326,25 +385,43 @@ export function mapExposures(w: WiringSnapshot, options: ExposureOptions = {}): 
     if (num !== null) {
       for (const h of idx.hazardsByNumber.get(`${cabinet}\u0000${num}`) ?? []) {
         if (h.stripId === t.stripId) continue;
-        emit(t, h, 'terminal-number', `${h.label} (${describeHazard(h)}) carries the same terminal number ${num} as ${t.label} on strip ${idx.stripName.get(h.stripId) ?? h.stripId} of the same cabinet`);
+        emit(
+          t,
+          h,
+          'terminal-number',
+          `${h.label} (${describeHazard(h)}) carries the same terminal number ${num} as ${t.label} on strip ${idx.stripName.get(h.stripId) ?? h.stripId} of the same cabinet`,
+        );
       }
     }
     const wire = normaliseWireNumber(t.wireNumber);
     if (wire !== null) {
       for (const h of idx.hazardsByWire.get(`${cabinet}\u0000${wire}`) ?? []) {
-        emit(t, h, 'wire-number-same', `${h.label} (${describeHazard(h)}) carries the same wire number ${wire} as ${t.label}`);
+        emit(
+          t,
+          h,
+          'wire-number-same',
+          `${h.label} (${describeHazard(h)}) carries the same wire number ${wire} as ${t.label}`,
+        );
       }
       forEachSimilarWireNumber(wire, (variant) => {
         const hits = idx.hazardsByWire.get(`${cabinet}\u0000${variant}`);
         if (!hits) return;
         for (const h of hits) {
-          emit(t, h, 'wire-number-similar', `${h.label} (${describeHazard(h)}) wire number ${variant} reads like ${wire} on ${t.label}`);
+          emit(
+            t,
+            h,
+            'wire-number-similar',
+            `${h.label} (${describeHazard(h)}) wire number ${variant} reads like ${wire} on ${t.label}`,
+          );
         }
       });
     }
   }
 
-  const countsByMechanism = Object.fromEntries(MECHANISMS.map((m) => [m, 0])) as Record<Mechanism, number>;
+  const countsByMechanism = Object.fromEntries(MECHANISMS.map((m) => [m, 0])) as Record<
+    Mechanism,
+    number
+  >;
   const targets: TargetExposures[] = idx.targetIds.map((id) => {
     const list = found.get(id) ?? [];
     let unique = list;
@@ -357,18 +434,19 @@ export function mapExposures(w: WiringSnapshot, options: ExposureOptions = {}): 
         return true;
       });
     }
-    if (unique.length > 1) unique.sort((a, b) => {
-      const ha = idx.terminalById.get(a.hazardTerminalId)!;
-      const hb = idx.terminalById.get(b.hazardTerminalId)!;
-      return (
-        b.weight - a.weight ||
-        peakOf(hb) - peakOf(ha) ||
-        MECHANISM_ORDER[a.mechanism] - MECHANISM_ORDER[b.mechanism] ||
-        compareIds(a.route, b.route) ||
-        compareIds(ha.label, hb.label) ||
-        compareIds(ha.id, hb.id)
-      );
-    });
+    if (unique.length > 1)
+      unique.sort((a, b) => {
+        const ha = idx.terminalById.get(a.hazardTerminalId)!;
+        const hb = idx.terminalById.get(b.hazardTerminalId)!;
+        return (
+          b.weight - a.weight ||
+          peakOf(hb) - peakOf(ha) ||
+          MECHANISM_ORDER[a.mechanism] - MECHANISM_ORDER[b.mechanism] ||
+          compareIds(a.route, b.route) ||
+          compareIds(ha.label, hb.label) ||
+          compareIds(ha.id, hb.id)
+        );
+      });
     for (const e of unique) countsByMechanism[e.mechanism]++;
     return {
       terminalId: id,

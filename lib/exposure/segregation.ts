@@ -16,7 +16,8 @@ export const SEGREGATION_CLAUSE =
 
 /** The band a terminal belongs to, or null for earth, spare, barrier and unknown hazards. */
 export function voltageBand(t: TerminalSnapshot): VoltageBand | null {
-  if (t.circuitClass === 'earth' || t.circuitClass === 'spare' || t.circuitClass === 'barrier') return null;
+  if (t.circuitClass === 'earth' || t.circuitClass === 'spare' || t.circuitClass === 'barrier')
+    return null;
   const v = t.nominalVoltage;
   if (v === null || v === undefined || !Number.isFinite(v)) {
     if (t.circuitClass !== 'hazard') return 'elv'; // signal circuits of the inputs
@@ -32,7 +33,10 @@ export function voltageBand(t: TerminalSnapshot): VoltageBand | null {
  * boundary where the band changes with no barrier between the two terminals. Earth and spare
  * terminals neither belong to a group nor separate groups.
  */
-export function checkSegregation(strips: readonly StripSnapshot[], terminals: readonly TerminalSnapshot[]): CheckFinding[] {
+export function checkSegregation(
+  strips: readonly StripSnapshot[],
+  terminals: readonly TerminalSnapshot[],
+): CheckFinding[] {
   const byStrip = new Map<string, TerminalSnapshot[]>();
   for (const t of terminals) {
     const list = byStrip.get(t.stripId);

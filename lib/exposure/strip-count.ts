@@ -19,8 +19,14 @@ export function stripOrderExposures(terminals: readonly TerminalSnapshot[]): Str
   const out: StripPair[] = [];
   for (const t of layout.ordered) {
     if (!isTargetClass(t)) continue;
-    neighbourHazards(t, layout, (target, hazard) => out.push({ targetId: target.id, hazardId: hazard.id }), '');
+    neighbourHazards(
+      t,
+      layout,
+      (target, hazard) => out.push({ targetId: target.id, hazardId: hazard.id }),
+      '',
+    );
   }
-  for (const p of bridgePairs(layout, '')) out.push({ targetId: p.target.id, hazardId: p.hazard.id });
+  for (const p of bridgePairs(layout, ''))
+    out.push({ targetId: p.target.id, hazardId: p.hazard.id });
   return out;
 }

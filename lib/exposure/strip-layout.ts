@@ -11,7 +11,9 @@ export interface StripLayout {
 
 export function compareOnStrip(a: TerminalSnapshot, b: TerminalSnapshot): number {
   return (
-    a.position - b.position || (a.level ?? 0) - (b.level ?? 0) || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0)
+    a.position - b.position ||
+    (a.level ?? 0) - (b.level ?? 0) ||
+    (a.id < b.id ? -1 : a.id > b.id ? 1 : 0)
   );
 }
 

@@ -7,12 +7,7 @@
 export type CircuitClass = 'hazard' | 'sensitive' | 'return' | 'earth' | 'spare' | 'barrier';
 
 export type HazardKind =
-  | 'mains-line'
-  | 'mains-neutral'
-  | 'dc-supply'
-  | 'motor-output'
-  | 'heater-output'
-  | 'other';
+  'mains-line' | 'mains-neutral' | 'dc-supply' | 'motor-output' | 'heater-output' | 'other';
 
 export type CurrentKind = 'ac' | 'dc';
 

@@ -35,7 +35,14 @@ export interface ResequenceOptions {
 }
 
 export type ProposedSlot =
-  | { kind: 'terminal'; position: number; terminalId: string; label: string; level: number | null; fromPosition: number }
+  | {
+      kind: 'terminal';
+      position: number;
+      terminalId: string;
+      label: string;
+      level: number | null;
+      fromPosition: number;
+    }
   | { kind: 'barrier' | 'spare'; position: number; added: true };
 
 export interface ResequenceMove {
@@ -112,7 +119,10 @@ function buildUnits(terminals: readonly TerminalSnapshot[]): Unit[] {
     else groups.set(r, [t]);
   }
   const units = [...groups.values()].map((list) => {
-    list.sort((a, b) => a.position - b.position || (a.level ?? 0) - (b.level ?? 0) || (a.id < b.id ? -1 : 1));
+    list.sort(
+      (a, b) =>
+        a.position - b.position || (a.level ?? 0) - (b.level ?? 0) || (a.id < b.id ? -1 : 1),
+    );
     const positions = [...new Set(list.map((t) => t.position))].sort((a, b) => a - b);
     const rank = new Map(positions.map((p, i) => [p, i]));
     return {
@@ -132,13 +142,13 @@ function buildUnits(terminals: readonly TerminalSnapshot[]): Unit[] {
   return units;
 }
 
-interface Layout {
-  order: number[];
-  /** Gaps (after item g) that receive a separator. */
-  cuts: number[];
-}
-
-function place(units: Unit[], order: readonly number[], cuts: ReadonlySet<number>, start: number, separator: Separator) {
+function place(
+  units: Unit[],
+  order: readonly number[],
+  cuts: ReadonlySet<number>,
+  start: number,
+  separator: Separator,
+) {
   const placed: TerminalSnapshot[] = [];
   /** placed plus the added separators as terminals, for recounting. */
   const strip: TerminalSnapshot[] = [];
@@ -154,16 +164,30 @@ function place(units: Unit[], order: readonly number[], cuts: ReadonlySet<number
       placed.push(moved);
       strip.push(moved);
       itemOf.set(t.id, item);
-      slots.push({ kind: 'terminal', position, terminalId: t.id, label: t.label, level: t.level ?? null, fromPosition: t.position });
+      slots.push({
+        kind: 'terminal',
+        position,
+        terminalId: t.id,
+        label: t.label,
+        level: t.level ?? null,
+        fromPosition: t.position,
+      });
     }
     pos += unit.width;
     if (cuts.has(item)) {
       if (separator === 'barrier') {
         slots.push({ kind: 'barrier', position: pos, added: true });
-        strip.push({ id: `\u0000added-${pos}`, stripId, position: pos, label: 'added barrier', circuitClass: 'barrier' });
+        strip.push({
+          id: `\u0000added-${pos}`,
+          stripId,
+          position: pos,
+          label: 'added barrier',
+          circuitClass: 'barrier',
+        });
         pos += 1;
       } else {
-        for (let k = 0; k < SPARE_WIDTH; k++) slots.push({ kind: 'spare', position: pos + k, added: true });
+        for (let k = 0; k < SPARE_WIDTH; k++)
+          slots.push({ kind: 'spare', position: pos + k, added: true });
         pos += SPARE_WIDTH;
       }
     }
@@ -220,15 +244,26 @@ function movedWeight(units: Unit[], order: readonly number[]): number {
   return w;
 }
 
-export function proposeResequence(terminals: readonly TerminalSnapshot[], options: ResequenceOptions = {}): ResequenceProposal {
+export function proposeResequence(
+  terminals: readonly TerminalSnapshot[],
+  options: ResequenceOptions = {},
+): ResequenceProposal {
   const separator = options.separator ?? 'barrier';
   const separatorCost = options.separatorCost ?? 2;
-  if (separator !== 'barrier' && separator !== 'spare') throw new RangeError(`separator must be "barrier" or "spare", got ${String(separator)}`);
-  if (!Number.isFinite(separatorCost) || separatorCost < 0) throw new RangeError(`separatorCost must be a finite number ≥ 0, got ${separatorCost}`);
+  if (separator !== 'barrier' && separator !== 'spare')
+    throw new RangeError(`separator must be "barrier" or "spare", got ${String(separator)}`);
+  if (!Number.isFinite(separatorCost) || separatorCost < 0)
+    throw new RangeError(`separatorCost must be a finite number ≥ 0, got ${separatorCost}`);
   const stripId = terminals[0]?.stripId ?? '';
   for (const t of terminals) {
-    if (t.stripId !== stripId) throw new RangeError(`terminal ${t.label} is on strip ${t.stripId}, not ${stripId}: propose one strip at a time`);
-    if (!Number.isInteger(t.position)) throw new RangeError(`terminal ${t.label}: position must be a whole number, got ${t.position}`);
+    if (t.stripId !== stripId)
+      throw new RangeError(
+        `terminal ${t.label} is on strip ${t.stripId}, not ${stripId}: propose one strip at a time`,
+      );
+    if (!Number.isInteger(t.position))
+      throw new RangeError(
+        `terminal ${t.label}: position must be a whole number, got ${t.position}`,
+      );
   }
   const before = stripOrderExposures(terminals).length;
   const identity = (note: string): ResequenceProposal => ({
@@ -240,8 +275,18 @@ export function proposeResequence(terminals: readonly TerminalSnapshot[], option
     renumbered: [],
     addedSeparators: [],
     order: [...terminals]
-      .sort((a, b) => a.position - b.position || (a.level ?? 0) - (b.level ?? 0) || (a.id < b.id ? -1 : 1))
-      .map((t) => ({ kind: 'terminal', position: t.position, terminalId: t.id, label: t.label, level: t.level ?? null, fromPosition: t.position })),
+      .sort(
+        (a, b) =>
+          a.position - b.position || (a.level ?? 0) - (b.level ?? 0) || (a.id < b.id ? -1 : 1),
+      )
+      .map((t) => ({
+        kind: 'terminal',
+        position: t.position,
+        terminalId: t.id,
+        label: t.label,
+        level: t.level ?? null,
+        fromPosition: t.position,
+      })),
     note,
   });
   if (before === 0) return identity('no exposure caused by the order of this strip');
@@ -283,7 +328,9 @@ export function proposeResequence(terminals: readonly TerminalSnapshot[], option
       const rest = current.order.filter((_, k) => k !== i);
       const gaps = new Set<number>([0, rest.length]);
       if (rest.length <= 60) for (let g = 0; g <= rest.length; g++) gaps.add(g);
-      else for (const c of current.cuts) for (const g of [c, c + 1, c + 2]) if (g <= rest.length) gaps.add(g);
+      else
+        for (const c of current.cuts)
+          for (const g of [c, c + 1, c + 2]) if (g <= rest.length) gaps.add(g);
       for (const g of [...gaps].sort((a, b) => a - b)) {
         if (g === i) continue;
         consider([...rest.slice(0, g), u, ...rest.slice(g)]);
@@ -295,16 +342,24 @@ export function proposeResequence(terminals: readonly TerminalSnapshot[], option
   const cutSet = new Set(best.cuts);
   const { placed, strip, slots } = place(units, best.order, cutSet, start, separator);
   const after = stripOrderExposures(strip).length;
-  if (after >= before) return identity('no order with fewer exposures was found; the strip is left as it is');
+  if (after >= before)
+    return identity('no order with fewer exposures was found; the strip is left as it is');
 
   const kept = keptUnits(units, best.order);
   const newPosition = new Map(placed.map((t) => [t.id, t.position]));
-  const movedIds = new Set(best.order.filter((u) => !kept.has(u)).flatMap((u) => units[u]!.terminals.map((t) => t.id)));
+  const movedIds = new Set(
+    best.order.filter((u) => !kept.has(u)).flatMap((u) => units[u]!.terminals.map((t) => t.id)),
+  );
   const moves: ResequenceMove[] = [];
   const renumbered: ResequenceMove[] = [];
   for (const s of slots) {
     if (s.kind !== 'terminal') continue;
-    const m = { terminalId: s.terminalId, label: s.label, from: s.fromPosition, to: newPosition.get(s.terminalId)! };
+    const m = {
+      terminalId: s.terminalId,
+      label: s.label,
+      from: s.fromPosition,
+      to: newPosition.get(s.terminalId)!,
+    };
     if (movedIds.has(s.terminalId)) moves.push(m);
     if (m.from !== m.to) renumbered.push(m);
   }
@@ -315,5 +370,15 @@ export function proposeResequence(terminals: readonly TerminalSnapshot[], option
     after === 0
       ? `removes every order-caused exposure: ${moves.length} terminal(s) moved, ${best.cuts.length} ${separator === 'barrier' ? 'barrier(s)' : 'spare group(s)'} added`
       : `${after} exposure(s) remain inside blocks or bridge groups that move as one unit`;
-  return { stripId, changed: true, before: { exposures: before }, after: { exposures: after }, moves, renumbered, addedSeparators, order: slots, note };
+  return {
+    stripId,
+    changed: true,
+    before: { exposures: before },
+    after: { exposures: after },
+    moves,
+    renumbered,
+    addedSeparators,
+    order: slots,
+    note,
+  };
 }

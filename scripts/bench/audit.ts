@@ -16,4 +16,5 @@ export function benchAudit(runs = 3): BenchFigure {
   return { name: 'full audit, 10 000 channels', goalMs: 2000, ...t, runs, detail };
 }
 
-if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) console.log(benchAudit());
+if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href)
+  console.log(benchAudit());

@@ -47,4 +47,5 @@ export function benchExposure(runs = 9): BenchFigure {
   };
 }
 
-if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) console.log(benchExposure());
+if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href)
+  console.log(benchExposure());

@@ -33,7 +33,11 @@ export function generateProject(options: GenerateOptions): ProjectSnapshot {
   const rand = prng(options.seed ?? 20261201);
   const perStrip = options.channelsPerStrip ?? 16;
   const stripsPerCabinet = options.stripsPerCabinet ?? 12;
-  const recipes = presetRecipes().map((r, i) => ({ id: `g${i + 1}`, name: r.name, guard: r.guard }));
+  const recipes = presetRecipes().map((r, i) => ({
+    id: `g${i + 1}`,
+    name: r.name,
+    guard: r.guard,
+  }));
   const s: ProjectSnapshot = {
     cabinets: [],
     strips: [],
@@ -61,7 +65,10 @@ export function generateProject(options: GenerateOptions): ProjectSnapshot {
   let cable = 100;
   let made = 0;
   let stripNo = 0;
-  const term = (t: Omit<TerminalSnapshot, 'label'> & { label?: string }, stripTag: string): TerminalSnapshot => {
+  const term = (
+    t: Omit<TerminalSnapshot, 'label'> & { label?: string },
+    stripTag: string,
+  ): TerminalSnapshot => {
     const full = { label: `${stripTag}:${t.position}`, ...t } as TerminalSnapshot;
     s.terminals.push(full);
     return full;
@@ -69,7 +76,8 @@ export function generateProject(options: GenerateOptions): ProjectSnapshot {
   while (made < options.channels) {
     const cabinetIndex = Math.floor(stripNo / stripsPerCabinet);
     const cabinetId = `cab${cabinetIndex}`;
-    if (stripNo % stripsPerCabinet === 0) s.cabinets.push({ id: cabinetId, tag: `HF-RIO-${cabinetIndex + 1}` });
+    if (stripNo % stripsPerCabinet === 0)
+      s.cabinets.push({ id: cabinetId, tag: `HF-RIO-${cabinetIndex + 1}` });
     const stripTag = `X${(stripNo % stripsPerCabinet) + 1}`;
     const stripId = `${cabinetId}-${stripTag}`;
     s.strips.push({ id: stripId, cabinetId, tag: stripTag });
@@ -77,32 +85,144 @@ export function generateProject(options: GenerateOptions): ProjectSnapshot {
     let pos = 1;
     const barrierFirst = rand() < 0.6;
     // Supply and mains group at the head of the strip.
-    term({ id: `${stripId}-p${pos}`, stripId, position: pos, circuitClass: 'hazard', hazardKind: 'mains-line', nominalVoltage: 230, currentKind: 'ac', frequency: 50, wireColour: rand() < 0.9 ? 'BK' : 'RD', wireNumber: `L${wire++}` }, stripTag);
+    term(
+      {
+        id: `${stripId}-p${pos}`,
+        stripId,
+        position: pos,
+        circuitClass: 'hazard',
+        hazardKind: 'mains-line',
+        nominalVoltage: 230,
+        currentKind: 'ac',
+        frequency: 50,
+        wireColour: rand() < 0.9 ? 'BK' : 'RD',
+        wireNumber: `L${wire++}`,
+      },
+      stripTag,
+    );
     pos++;
-    term({ id: `${stripId}-p${pos}`, stripId, position: pos, circuitClass: 'hazard', hazardKind: 'mains-neutral', nominalVoltage: 230, currentKind: 'ac', frequency: 50, wireColour: 'light blue', wireNumber: `N${wire++}` }, stripTag);
+    term(
+      {
+        id: `${stripId}-p${pos}`,
+        stripId,
+        position: pos,
+        circuitClass: 'hazard',
+        hazardKind: 'mains-neutral',
+        nominalVoltage: 230,
+        currentKind: 'ac',
+        frequency: 50,
+        wireColour: 'light blue',
+        wireNumber: `N${wire++}`,
+      },
+      stripTag,
+    );
     pos++;
-    term({ id: `${stripId}-p${pos}`, stripId, position: pos, circuitClass: 'earth', wireColour: 'GNYE' }, stripTag);
+    term(
+      {
+        id: `${stripId}-p${pos}`,
+        stripId,
+        position: pos,
+        circuitClass: 'earth',
+        wireColour: 'GNYE',
+      },
+      stripTag,
+    );
     pos++;
     if (barrierFirst) {
       term({ id: `${stripId}-p${pos}`, stripId, position: pos, circuitClass: 'barrier' }, stripTag);
       pos++;
     }
-    term({ id: `${stripId}-p${pos}`, stripId, position: pos, circuitClass: 'hazard', hazardKind: 'dc-supply', nominalVoltage: 24, currentKind: 'dc', wireColour: 'BU', wireNumber: `${wire++}`, bridgeGroup: 'P24' }, stripTag);
+    term(
+      {
+        id: `${stripId}-p${pos}`,
+        stripId,
+        position: pos,
+        circuitClass: 'hazard',
+        hazardKind: 'dc-supply',
+        nominalVoltage: 24,
+        currentKind: 'dc',
+        wireColour: 'BU',
+        wireNumber: `${wire++}`,
+        bridgeGroup: 'P24',
+      },
+      stripTag,
+    );
     pos++;
-    term({ id: `${stripId}-p${pos}`, stripId, position: pos, circuitClass: 'hazard', hazardKind: 'dc-supply', nominalVoltage: 24, currentKind: 'dc', wireColour: 'BU', wireNumber: `${wire++}`, bridgeGroup: 'P24' }, stripTag);
+    term(
+      {
+        id: `${stripId}-p${pos}`,
+        stripId,
+        position: pos,
+        circuitClass: 'hazard',
+        hazardKind: 'dc-supply',
+        nominalVoltage: 24,
+        currentKind: 'dc',
+        wireColour: 'BU',
+        wireNumber: `${wire++}`,
+        bridgeGroup: 'P24',
+      },
+      stripTag,
+    );
     pos++;
     const cableId = `W-${cable++}`;
     for (let k = 0; k < perStrip && made < options.channels; k++, made++) {
       const tag = `${['FT', 'PT', 'LT', 'TT', 'XS', 'ZS'][k % 6]}-${String(made + 1).padStart(5, '0')}`;
       const stacked = rand() < 0.15;
-      const sig = term({ id: `${stripId}-p${pos}a`, stripId, position: pos, level: stacked ? 1 : null, blockId: stacked ? `${stripId}-K${pos}` : null, circuitClass: 'sensitive', currentKind: 'dc', wireColour: 'BU', wireNumber: `${wire++}`, cableId, cableCore: `${2 * k + 1}`, channelId: `ch${made}` }, stripTag);
+      const sig = term(
+        {
+          id: `${stripId}-p${pos}a`,
+          stripId,
+          position: pos,
+          level: stacked ? 1 : null,
+          blockId: stacked ? `${stripId}-K${pos}` : null,
+          circuitClass: 'sensitive',
+          currentKind: 'dc',
+          wireColour: 'BU',
+          wireNumber: `${wire++}`,
+          cableId,
+          cableCore: `${2 * k + 1}`,
+          channelId: `ch${made}`,
+        },
+        stripTag,
+      );
       let ret: TerminalSnapshot;
       if (stacked) {
-        ret = term({ id: `${stripId}-p${pos}b`, stripId, position: pos, level: 2, blockId: `${stripId}-K${pos}`, label: `${stripTag}:${pos}.2`, circuitClass: 'return', currentKind: 'dc', wireColour: 'BU', wireNumber: `${wire++}`, cableId, cableCore: `${2 * k + 2}`, bridgeGroup: 'COM' }, stripTag);
+        ret = term(
+          {
+            id: `${stripId}-p${pos}b`,
+            stripId,
+            position: pos,
+            level: 2,
+            blockId: `${stripId}-K${pos}`,
+            label: `${stripTag}:${pos}.2`,
+            circuitClass: 'return',
+            currentKind: 'dc',
+            wireColour: 'BU',
+            wireNumber: `${wire++}`,
+            cableId,
+            cableCore: `${2 * k + 2}`,
+            bridgeGroup: 'COM',
+          },
+          stripTag,
+        );
         pos++;
       } else {
         pos++;
-        ret = term({ id: `${stripId}-p${pos}`, stripId, position: pos, circuitClass: 'return', currentKind: 'dc', wireColour: 'BU', wireNumber: `${wire++}`, cableId, cableCore: `${2 * k + 2}`, bridgeGroup: 'COM' }, stripTag);
+        ret = term(
+          {
+            id: `${stripId}-p${pos}`,
+            stripId,
+            position: pos,
+            circuitClass: 'return',
+            currentKind: 'dc',
+            wireColour: 'BU',
+            wireNumber: `${wire++}`,
+            cableId,
+            cableCore: `${2 * k + 2}`,
+            bridgeGroup: 'COM',
+          },
+          stripTag,
+        );
         pos++;
       }
       const recipe = rand() < 0.03 ? null : recipes[Math.floor(rand() * recipes.length)]!;
@@ -116,13 +236,31 @@ export function generateProject(options: GenerateOptions): ProjectSnapshot {
         returnTerminalId: ret.id,
         guardRecipeId: recipe?.id ?? null,
         guardOverrides:
-          overrideR && firstSeries && 'resistance' in firstSeries && firstSeries.resistance !== undefined
+          overrideR &&
+          firstSeries &&
+          'resistance' in firstSeries &&
+          firstSeries.resistance !== undefined
             ? { elements: { [firstSeries.id]: { resistance: firstSeries.resistance * 2 } } }
             : null,
       });
       // Now and then a motor output or a heater lands among the inputs (a real-world habit).
       if (rand() < 0.04) {
-        term({ id: `${stripId}-p${pos}`, stripId, position: pos, circuitClass: 'hazard', hazardKind: rand() < 0.5 ? 'motor-output' : 'heater-output', nominalVoltage: 230, currentKind: 'ac', frequency: 50, wireColour: 'BK', wireNumber: `${wire++}`, cableId: rand() < 0.3 ? cableId : null }, stripTag);
+        term(
+          {
+            id: `${stripId}-p${pos}`,
+            stripId,
+            position: pos,
+            circuitClass: 'hazard',
+            hazardKind: rand() < 0.5 ? 'motor-output' : 'heater-output',
+            nominalVoltage: 230,
+            currentKind: 'ac',
+            frequency: 50,
+            wireColour: 'BK',
+            wireNumber: `${wire++}`,
+            cableId: rand() < 0.3 ? cableId : null,
+          },
+          stripTag,
+        );
         pos++;
       }
     }
@@ -141,6 +279,9 @@ export function generateTerminals(count: number, seed = 7): ProjectSnapshot {
   }
   const keep = new Set(p.terminals.slice(0, count).map((t) => t.id));
   p.terminals = p.terminals.filter((t) => keep.has(t.id));
-  p.channels = p.channels.filter((c) => keep.has(c.signalTerminalId) && (c.returnTerminalId == null || keep.has(c.returnTerminalId)));
+  p.channels = p.channels.filter(
+    (c) =>
+      keep.has(c.signalTerminalId) && (c.returnTerminalId == null || keep.has(c.returnTerminalId)),
+  );
   return p;
 }

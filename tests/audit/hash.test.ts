@@ -1,11 +1,19 @@
 import { createHash } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
-import { canonicalJson, canonicalSnapshot, diffSnapshots, sha256Hex, snapshotHash } from '@/lib/audit';
+import {
+  canonicalJson,
+  canonicalSnapshot,
+  diffSnapshots,
+  sha256Hex,
+  snapshotHash,
+} from '@/lib/audit';
 import { kestrelSnapshot } from './fixtures';
 
 describe('SHA-256', () => {
   it('matches the FIPS 180-2 example vectors', () => {
-    expect(sha256Hex('abc')).toBe('ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad');
+    expect(sha256Hex('abc')).toBe(
+      'ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad',
+    );
     expect(sha256Hex('abcdbcdecdefdefgefghfghighijhijkijkljklmklmnlmnomnopnopq')).toBe(
       '248d6a61d20638b8e5c026930c3e6039a33ce45964ff2167f6ecedd419db06c1',
     );
@@ -22,7 +30,9 @@ describe('SHA-256', () => {
 
 describe('canonical JSON', () => {
   it('sorts keys, drops null and absent members, writes −0 as 0', () => {
-    expect(canonicalJson({ b: 1, a: { d: null, c: [2, -0] }, e: undefined })).toBe('{"a":{"c":[2,0]},"b":1}');
+    expect(canonicalJson({ b: 1, a: { d: null, c: [2, -0] }, e: undefined })).toBe(
+      '{"a":{"c":[2,0]},"b":1}',
+    );
   });
 
   it('refuses what cannot be hashed, naming where', () => {
@@ -35,7 +45,9 @@ describe('snapshot hash', () => {
     const a = kestrelSnapshot();
     const b = kestrelSnapshot();
     b.terminals.reverse();
-    b.terminals[0] = Object.fromEntries(Object.entries(b.terminals[0]!).reverse()) as typeof b.terminals[0];
+    b.terminals[0] = Object.fromEntries(
+      Object.entries(b.terminals[0]!).reverse(),
+    ) as (typeof b.terminals)[0];
     expect(snapshotHash(a)).toBe(snapshotHash(b));
     expect(snapshotHash(a)).toMatch(/^[0-9a-f]{64}$/);
   });
@@ -58,7 +70,13 @@ describe('snapshot hash', () => {
     b.terminals.find((t) => t.id === 't8')!.nominalVoltage = 48;
     expect(snapshotHash(b)).not.toBe(snapshotHash(a));
     expect(diffSnapshots(a, b)).toEqual([
-      { entity: 'terminal', id: 't8', label: 'X2:8', change: 'changed', fields: [{ field: 'nominalVoltage', before: 24, after: 48 }] },
+      {
+        entity: 'terminal',
+        id: 't8',
+        label: 'X2:8',
+        change: 'changed',
+        fields: [{ field: 'nominalVoltage', before: 24, after: 48 }],
+      },
     ]);
   });
 
@@ -68,7 +86,13 @@ describe('snapshot hash', () => {
     b.settings.surgeLevelKv = 2;
     expect(snapshotHash(b)).not.toBe(snapshotHash(a));
     expect(diffSnapshots(a, b)).toEqual([
-      { entity: 'settings', id: 'settings', label: 'project settings', change: 'changed', fields: [{ field: 'surgeLevelKv', before: 1, after: 2 }] },
+      {
+        entity: 'settings',
+        id: 'settings',
+        label: 'project settings',
+        change: 'changed',
+        fields: [{ field: 'surgeLevelKv', before: 1, after: 2 }],
+      },
     ]);
   });
 });

@@ -1,5 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { diffAudits, diffSnapshots, runAudit, type AuditProgress, type ProjectSnapshot } from '@/lib/audit';
+import {
+  diffAudits,
+  diffSnapshots,
+  runAudit,
+  type AuditProgress,
+  type ProjectSnapshot,
+} from '@/lib/audit';
 import { kestrelSnapshot } from './fixtures';
 
 // These run the real stress engine (lib/stress). Case values: IEC 60038 (253 V), IEC 61131-2
@@ -12,9 +18,14 @@ describe('runAudit on the Kestrel Ridge strip', () => {
 
   it('every channel gets surge and ESD in both polarities, exposed or not', () => {
     for (const tag of ['AI-101', 'DI-102']) {
-      for (const c of ['surge+', 'surge-', 'esd+', 'esd-']) expect(byKey.has(`${tag}|${c}`)).toBe(true);
+      for (const c of ['surge+', 'surge-', 'esd+', 'esd-'])
+        expect(byKey.has(`${tag}|${c}`)).toBe(true);
     }
-    expect(byKey.get('AI-101|surge+')!.stress).toEqual({ kind: 'surge', peakVoltage: 1000, couplingResistance: 40 });
+    expect(byKey.get('AI-101|surge+')!.stress).toEqual({
+      kind: 'surge',
+      peakVoltage: 1000,
+      couplingResistance: 40,
+    });
   });
 
   it('the nearest mis-wire hazard is the 230 V line beside the input, not the 24 V supply farther off', () => {
@@ -23,15 +34,28 @@ describe('runAudit on the Kestrel Ridge strip', () => {
     // burns; the 24 V supply at X2:8 is three positions from the input and two from its return,
     // a less likely slip and a smaller stress. The line terminal wins.
     const ch = result.channels.find((c) => c.tag === 'AI-101')!;
-    expect(ch.nearestHazard).toMatchObject({ hazardLabel: 'X2:4', mechanism: 'neighbour', route: 'adjacent', likelihood: 'likely', verdict: 'fails' });
+    expect(ch.nearestHazard).toMatchObject({
+      hazardLabel: 'X2:4',
+      mechanism: 'neighbour',
+      route: 'adjacent',
+      likelihood: 'likely',
+      verdict: 'fails',
+    });
     const top = byKey.get(ch.nearestHazard!.findingKey)!;
-    expect(top.stress).toEqual({ kind: 'ac', rmsVoltage: 253, frequency: 50, sourceResistance: 0.1 });
+    expect(top.stress).toEqual({
+      kind: 'ac',
+      rmsVoltage: 253,
+      frequency: 50,
+      sourceResistance: 0.1,
+    });
     expect(top.basis).toMatch(/IEC 60038/);
     // Engine figures per element are carried on the finding.
     expect(top.elements.map((e) => e.elementId)).toEqual(expect.arrayContaining(['R1', 'TVS1']));
     expect(top.margin).not.toBeNull();
     expect(top.margin!).toBeLessThan(0);
-    const dc = result.findings.filter((f) => f.channelTag === 'AI-101' && f.exposure?.hazardLabel === 'X2:8');
+    const dc = result.findings.filter(
+      (f) => f.channelTag === 'AI-101' && f.exposure?.hazardLabel === 'X2:8',
+    );
     expect(dc.length).toBe(2); // the input at distance 3 and the return at distance 2
     for (const f of dc) expect(f.score!).toBeLessThan(ch.nearestHazard!.score);
   });
@@ -52,15 +76,26 @@ describe('runAudit on the Kestrel Ridge strip', () => {
   it('keys are unique and the summary adds up', () => {
     expect(byKey.size).toBe(result.findings.length);
     const s = result.summary;
-    expect(Object.values(s.findingsByVerdict).reduce((a, b) => a + b, 0)).toBe(result.findings.length);
+    expect(Object.values(s.findingsByVerdict).reduce((a, b) => a + b, 0)).toBe(
+      result.findings.length,
+    );
     expect(Object.values(s.channelsByVerdict).reduce((a, b) => a + b, 0)).toBe(2);
-    expect(Object.values(s.findingsByMechanism).reduce((a, b) => a + b, 0)).toBe(result.findings.length);
+    expect(Object.values(s.findingsByMechanism).reduce((a, b) => a + b, 0)).toBe(
+      result.findings.length,
+    );
     expect(s.checksByKind.segregation).toBe(1); // X2:4 mains next to X2:5 with no barrier
   });
 
   it('a hazard with no voltage gives an incomplete finding, never a silent pass', () => {
     const s = kestrelSnapshot();
-    s.terminals.push({ id: 't10', stripId: 's1', position: 10, label: 'X2:10', circuitClass: 'hazard', hazardKind: 'other' });
+    s.terminals.push({
+      id: 't10',
+      stripId: 's1',
+      position: 10,
+      label: 'X2:10',
+      circuitClass: 'hazard',
+      hazardKind: 'other',
+    });
     const r = runAudit(s);
     const f = r.findings.find((x) => x.exposure?.hazardLabel === 'X2:10')!;
     expect(f.verdict).toBe('incomplete');
@@ -74,7 +109,14 @@ describe('audit identity and deltas', () => {
     const b = runAudit(kestrelSnapshot());
     expect(a.hash).toBe(b.hash);
     expect(b.findings).toEqual(a.findings);
-    expect(diffAudits(a, b)).toEqual({ inputsChanged: false, newFindings: [], resolvedFindings: [], changedFindings: [], newChecks: [], resolvedChecks: [] });
+    expect(diffAudits(a, b)).toEqual({
+      inputsChanged: false,
+      newFindings: [],
+      resolvedFindings: [],
+      changedFindings: [],
+      newChecks: [],
+      resolvedChecks: [],
+    });
   });
 
   it('moving the 24 V supply one position changes the hash, and the delta names it', () => {
@@ -85,7 +127,13 @@ describe('audit identity and deltas', () => {
     const b = runAudit(after);
     expect(b.hash).not.toBe(a.hash);
     expect(diffSnapshots(before, after)).toEqual([
-      { entity: 'terminal', id: 't8', label: 'X2:8', change: 'changed', fields: [{ field: 'position', before: 8, after: 7 }] },
+      {
+        entity: 'terminal',
+        id: 't8',
+        label: 'X2:8',
+        change: 'changed',
+        fields: [{ field: 'position', before: 8, after: 7 }],
+      },
     ]);
     const d = diffAudits(a, b);
     expect(d.inputsChanged).toBe(true);
@@ -118,8 +166,20 @@ describe('progress and caching', () => {
     const s = kestrelSnapshot();
     s.strips.push({ id: 's2', cabinetId: 'c1', tag: 'X9' });
     for (let i = 0; i < n; i++) {
-      s.terminals.push({ id: `a${i}`, stripId: 's2', position: i + 1, label: `X9:${i + 1}`, circuitClass: 'sensitive', currentKind: 'dc' });
-      s.channels.push({ id: `c${i}`, tag: `AI-2${String(i).padStart(2, '0')}`, signalTerminalId: `a${i}`, guardRecipeId: 'g1' });
+      s.terminals.push({
+        id: `a${i}`,
+        stripId: 's2',
+        position: i + 1,
+        label: `X9:${i + 1}`,
+        circuitClass: 'sensitive',
+        currentKind: 'dc',
+      });
+      s.channels.push({
+        id: `c${i}`,
+        tag: `AI-2${String(i).padStart(2, '0')}`,
+        signalTerminalId: `a${i}`,
+        guardRecipeId: 'g1',
+      });
     }
     return s;
   }
@@ -138,7 +198,8 @@ describe('progress and caching', () => {
     runAudit(manyChannels(250), { onProgress: (p) => seen.push(p) });
     const stress = seen.filter((p) => p.phase === 'stress');
     expect(stress.at(-1)).toEqual({ phase: 'stress', done: 252, total: 252 });
-    for (let i = 1; i < stress.length; i++) expect(stress[i]!.done).toBeGreaterThan(stress[i - 1]!.done);
+    for (let i = 1; i < stress.length; i++)
+      expect(stress[i]!.done).toBeGreaterThan(stress[i - 1]!.done);
     expect(seen.at(-1)!.phase).toBe('done');
   });
 });

@@ -29,7 +29,9 @@ describe('audit input validation', () => {
     try {
       assertAuditable(s);
     } catch (e) {
-      expect((e as AuditInputError).fieldErrors['channels[AI-101].guardOverrides']![0]).toMatch(/resistance/);
+      expect((e as AuditInputError).fieldErrors['channels[AI-101].guardOverrides']![0]).toMatch(
+        /resistance/,
+      );
     }
   });
 });

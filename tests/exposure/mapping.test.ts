@@ -46,18 +46,30 @@ describe('neighbour mechanism', () => {
 
   it('spares and earth terminals between do not break the exposure, they only add distance', () => {
     const map = mapExposures(
-      wiring([mainsLine('L1', 1), term({ id: 'S', position: 2, circuitClass: 'spare' }), term({ id: 'PE', position: 3, circuitClass: 'earth' }), input('AI1', 4)]),
+      wiring([
+        mainsLine('L1', 1),
+        term({ id: 'S', position: 2, circuitClass: 'spare' }),
+        term({ id: 'PE', position: 3, circuitClass: 'earth' }),
+        input('AI1', 4),
+      ]),
     );
     expect(exposuresOf(map, 'AI1').map(brief)).toEqual(['L1:near:plausible']);
   });
 
   it('a neighbour on another level of the next block is one class less likely', () => {
-    const map = mapExposures(wiring([input('AI1', 2, { level: 1, blockId: 'K2' }), mainsLine('L1', 3, { level: 2, blockId: 'K3' })]));
+    const map = mapExposures(
+      wiring([
+        input('AI1', 2, { level: 1, blockId: 'K2' }),
+        mainsLine('L1', 3, { level: 2, blockId: 'K3' }),
+      ]),
+    );
     expect(exposuresOf(map, 'AI1').map(brief)).toEqual(['L1:adjacent:plausible']);
   });
 
   it('neighbours on another strip are not neighbours', () => {
-    const map = mapExposures(wiring([input('AI1', 2), mainsLine('L1', 3, { stripId: 'X2', label: 'X2:3' })]));
+    const map = mapExposures(
+      wiring([input('AI1', 2), mainsLine('L1', 3, { stripId: 'X2', label: 'X2:3' })]),
+    );
     expect(exposuresOf(map, 'AI1')).toEqual([]);
   });
 });
@@ -65,14 +77,23 @@ describe('neighbour mechanism', () => {
 describe('stacked mechanism', () => {
   it('another level of the same multi-level block is likely', () => {
     const map = mapExposures(
-      wiring([input('AI1', 5, { level: 1, blockId: 'K5' }), mainsLine('L1', 5, { level: 2, blockId: 'K5' }), dcSupply('P', 5, { level: 3, blockId: 'K5' })]),
+      wiring([
+        input('AI1', 5, { level: 1, blockId: 'K5' }),
+        mainsLine('L1', 5, { level: 2, blockId: 'K5' }),
+        dcSupply('P', 5, { level: 3, blockId: 'K5' }),
+      ]),
     );
-    expect(exposuresOf(map, 'AI1').map(brief)).toEqual(['L1:other-level:likely', 'P:other-level:likely']);
+    expect(exposuresOf(map, 'AI1').map(brief)).toEqual([
+      'L1:other-level:likely',
+      'P:other-level:likely',
+    ]);
     expect(exposuresOf(map, 'AI1')[0]!.mechanism).toBe('stacked');
   });
 
   it('without block ids, levels at the same position are the same block', () => {
-    const map = mapExposures(wiring([input('AI1', 5, { level: 1 }), mainsLine('L1', 5, { level: 2 })]));
+    const map = mapExposures(
+      wiring([input('AI1', 5, { level: 1 }), mainsLine('L1', 5, { level: 2 })]),
+    );
     expect(exposuresOf(map, 'AI1').map(brief)).toEqual(['L1:other-level:likely']);
   });
 });
@@ -91,7 +112,11 @@ describe('cable mechanism', () => {
 
   it('another pin of the same connector in the same cabinet', () => {
     const map = mapExposures(
-      wiring([input('AI1', 1, { connector: 'XS3' }), dcSupply('P', 20, { connector: 'XS3' }), dcSupply('Q', 3, { stripId: 'X5', connector: 'XS3' })]),
+      wiring([
+        input('AI1', 1, { connector: 'XS3' }),
+        dcSupply('P', 20, { connector: 'XS3' }),
+        dcSupply('Q', 3, { stripId: 'X5', connector: 'XS3' }),
+      ]),
     );
     // Q is in the other cabinet: a connector called XS3 there is a different connector.
     expect(exposuresOf(map, 'AI1').map(brief)).toEqual(['P:connector-pin:plausible']);
@@ -120,7 +145,10 @@ describe('look-alike mechanism', () => {
         mainsLine('FAR', 9, { stripId: 'X5', wireNumber: '1014' }), // other cabinet
       ]),
     );
-    expect(exposuresOf(map, 'AI1').map(brief)).toEqual(['SAME:wire-number-same:likely', 'SWAP:wire-number-similar:remote']);
+    expect(exposuresOf(map, 'AI1').map(brief)).toEqual([
+      'SAME:wire-number-same:likely',
+      'SWAP:wire-number-similar:remote',
+    ]);
   });
 });
 
@@ -151,7 +179,10 @@ describe('bridge mechanism', () => {
         dcSupply('Q', 5),
       ]),
     );
-    const bridgeOnly = (id: string) => exposuresOf(map, id).filter((e) => e.mechanism === 'bridge').map(brief);
+    const bridgeOnly = (id: string) =>
+      exposuresOf(map, id)
+        .filter((e) => e.mechanism === 'bridge')
+        .map(brief);
     expect(bridgeOnly('R1')).toEqual(['P:bridge-end:plausible']);
     expect(bridgeOnly('R2')).toEqual(['P:bridge-end:plausible']);
     // COM2 is a one-terminal comb at 6: Q at 5 is its end; the barrier at 4 is not between them.
@@ -212,9 +243,13 @@ describe('targets and ranking', () => {
   });
 
   it('project weights change the weight of each class; bad weights are refused by name', () => {
-    const map = mapExposures(wiring([mainsLine('L1', 1), input('AI1', 3)]), { weights: { plausible: 0.5 } });
+    const map = mapExposures(wiring([mainsLine('L1', 1), input('AI1', 3)]), {
+      weights: { plausible: 0.5 },
+    });
     expect(exposuresOf(map, 'AI1')[0]!.weight).toBe(0.5);
-    expect(() => mapExposures(wiring([]), { weights: { likely: -1 } })).toThrow(/likelihood weight "likely"/);
+    expect(() => mapExposures(wiring([]), { weights: { likely: -1 } })).toThrow(
+      /likelihood weight "likely"/,
+    );
     expect(() => mapExposures(wiring([]), { weights: { remote: Number.NaN } })).toThrow(/"remote"/);
   });
 });
