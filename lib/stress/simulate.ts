@@ -41,6 +41,13 @@ const ESD_STATIC_INTERVALS = 40;
  * peak: a clamp that no longer conducts holds the remaining charge), the rest is dropped.
  */
 function esdStatic(solver: LadderSolver, recorder: Recorder, charge: number): void {
+  if (!(Math.abs(charge) >= 1e-9)) {
+    // no charge worth integrating (below a nanovolt): one sample of the idle network
+    solver.solve(0, ESD_RESISTANCE);
+    recorder.record(0, 0, ESD_RESISTANCE, 0);
+    recorder.sim.duration = 0;
+    return;
+  }
   // Tip phase (the first nanoseconds): the tip branch discharges from V towards the terminal
   // voltage while the body (τ ≥ 50 ns) still holds V. Its excess over the body-only state,
   // ∫ (f(body + tip) − f(body)) dt = C_tip ∫ (f(V, Vt) − f(V)) / i_tip dVt, on nodes crowding
@@ -183,6 +190,7 @@ export interface Simulation {
 }
 
 const DEFAULT_AC_QUARTER_SAMPLES = 16;
+const MAX_SETTLE_CYCLES = 30;
 
 class Recorder {
   readonly net: CompiledNetwork;
@@ -577,8 +585,10 @@ export function simulate(net: CompiledNetwork, stressCase: StressCase, sign: 1 |
         const stepsPerCycle = 2000;
         const h = period / stepsPerCycle;
         const tau = capacitorTimeConstant(net, rs);
-        const settleCycles = Math.min(100, Math.ceil((5 * tau) / period));
-        if (settleCycles === 100) sim.notes.push('capacitor time constant is long against the period: steady state approximated after 100 cycles');
+        const settleCycles = Math.min(MAX_SETTLE_CYCLES, Math.ceil((5 * tau) / period));
+        if (settleCycles === MAX_SETTLE_CYCLES) {
+          sim.notes.push(`capacitor time constant is long against the period: steady state approximated after ${MAX_SETTLE_CYCLES} cycles`);
+        }
         let steps = 0;
         updateCompanionsInitial(solver);
         solver.solve(0, rs);
