@@ -11,6 +11,7 @@ export const PROJECT_SECTIONS: ProjectSection[] = [
   { slug: '', label: 'Overview', capability: 'project:read' },
   { slug: 'cabinets', label: 'Schedule', capability: 'schedule:read' },
   { slug: 'guards', label: 'Guard recipes', capability: 'schedule:read' },
+  { slug: 'audit', label: 'Audit', capability: 'audit:read' },
   { slug: 'settings', label: 'Assumptions', capability: 'project:read' },
 ];
 

@@ -48,10 +48,18 @@ export function shown(value: number, unit: string): ShownNumber {
   return { value, unit, text: formatEng(value, unit) };
 }
 
-/** Margin as a percentage of the derated rating, one decimal: 0.7781 → "77.8 %". */
+/**
+ * Margin as a percentage of the derated rating, one decimal: 0.7781 → "77.8 %". Far beyond
+ * the rating a percentage stops reading well (−200858.8 %), so from ten times the derated
+ * rating it reads as that multiple: stress / derated = 1 − margin → "2010× derated".
+ */
 export function formatMargin(margin: number | null): string {
   if (margin === null) return '—';
   if (margin <= -1e8) return 'far over';
+  if (margin < -9) {
+    const times = 1 - margin;
+    return `${times >= 100 ? Math.round(times) : Number(times.toPrecision(3))}× derated`;
+  }
   return `${(margin * 100).toFixed(1)} %`;
 }
 

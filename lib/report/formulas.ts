@@ -8,7 +8,7 @@
 import { formatEng } from '../units';
 import { seriesResistanceOf } from '../stress/network';
 import type { ElementStress, Guard, RatingCheck, StressCase, StressResult, Waveform } from '../stress/types';
-import { QUANTITY_UNIT, shown, type ShownNumber } from './format';
+import { formatMargin, QUANTITY_UNIT, shown, type ShownNumber } from './format';
 
 export interface FormulaLine {
   id: string;
@@ -150,7 +150,7 @@ export function checkLines(elementId: string, c: RatingCheck, index: number): Fo
   const derated = shown(c.deratedRating, unit);
   const value = shown(c.value, unit);
   const factors = kT !== 1 ? `${rating.text} × ${kT.toPrecision(3)} × ${kd.toPrecision(3)}` : `${rating.text} × ${kd.toPrecision(3)}`;
-  const marginText = `${(c.margin * 100).toFixed(1)} %`;
+  const marginText = formatMargin(c.margin);
   return [
     {
       id: `derated-${elementId}-${index}`,

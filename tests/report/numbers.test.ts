@@ -138,7 +138,7 @@ describe('channel page numbers equal the engine’s', () => {
           if (marginLine) {
             // The margin's definition (lib/stress/ratings.ts check()): the substitution is exact.
             expect((k.deratedRating! - k.value) / k.deratedRating!).toBeCloseTo(k.margin!, 12);
-            expect(marginLine.result.text).toBe(`${(k.margin! * 100).toFixed(1)} %`);
+            expect(marginLine.result.text).toBe(formatMargin(k.margin));
           }
           const deratedLine = lines.find((l) => l.id === `derated-${e.elementId}-${i}`);
           if (deratedLine) expect(deratedLine.result.text).toBe(formatEng(k.deratedRating!, QUANTITY_UNIT[k.quantity]));

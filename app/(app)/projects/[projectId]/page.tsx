@@ -1,8 +1,11 @@
 import type { Metadata } from 'next';
 import { notFound, redirect } from 'next/navigation';
+import { OverviewAudit } from '@/components/report/overview-audit';
 import { Caution } from '@/components/ui/caution';
 import { Panel, PanelTitle } from '@/components/ui/panel';
-import { getSignedInUser } from '@/lib/data/membership';
+import { can } from '@/lib/auth/permissions';
+import { getAuditRun, getAuditStatus, latestRunId, listFindings } from '@/lib/data/audits';
+import { getSignedInUser, loadStanding } from '@/lib/data/membership';
 import { getProjectOverview } from '@/lib/data/projects';
 
 export const metadata: Metadata = { title: 'Project overview' };
@@ -35,6 +38,20 @@ export default async function ProjectOverviewPage({ params }: { params: Promise<
   const { counts, cabinets, terminalsByClass } = overview;
   const empty = counts.terminals === 0;
 
+  // The audit's state, for those who may read it.
+  const standing = await loadStanding(user, Number(projectId));
+  const readsAudit = standing !== null && can(standing, 'audit:read');
+  const runId = readsAudit && !empty ? await latestRunId(Number(projectId)) : null;
+  const audit =
+    readsAudit && !empty
+      ? {
+          status: await getAuditStatus(Number(projectId)),
+          detail: runId !== null ? await getAuditRun(Number(projectId), runId) : null,
+          findings: runId !== null ? (await listFindings(Number(projectId), runId, { kind: ['stress'], all: true })).items : [],
+          mayRun: can(standing, 'audit:run'),
+        }
+      : null;
+
   return (
     <div className="space-y-6">
       <dl className="grid grid-cols-2 gap-3 md:grid-cols-5" aria-label="Schedule counts">
@@ -53,6 +70,8 @@ export default async function ProjectOverviewPage({ params }: { params: Promise<
           </div>
         ))}
       </dl>
+
+      {audit && <OverviewAudit projectId={Number(projectId)} {...audit} />}
 
       {empty ? (
         <Panel>
