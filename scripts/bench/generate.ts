@@ -117,17 +117,19 @@ export function generateProject(options: GenerateOptions): ProjectSnapshot {
       stripTag,
     );
     pos++;
-    term(
-      {
-        id: `${stripId}-p${pos}`,
-        stripId,
-        position: pos,
-        circuitClass: 'earth',
-        wireColour: 'GNYE',
-      },
-      stripTag,
-    );
-    pos++;
+    if (rand() < 0.7) {
+      term(
+        {
+          id: `${stripId}-p${pos}`,
+          stripId,
+          position: pos,
+          circuitClass: 'earth',
+          wireColour: 'GNYE',
+        },
+        stripTag,
+      );
+      pos++;
+    }
     if (barrierFirst) {
       term({ id: `${stripId}-p${pos}`, stripId, position: pos, circuitClass: 'barrier' }, stripTag);
       pos++;
@@ -205,6 +207,26 @@ export function generateProject(options: GenerateOptions): ProjectSnapshot {
           },
           stripTag,
         );
+        // A three-level sensor block: supply on the top level, one slip above the signal.
+        if (rand() < 0.4) {
+          term(
+            {
+              id: `${stripId}-p${pos}c`,
+              stripId,
+              position: pos,
+              level: 3,
+              blockId: `${stripId}-K${pos}`,
+              label: `${stripTag}:${pos}.3`,
+              circuitClass: 'hazard',
+              hazardKind: 'dc-supply',
+              nominalVoltage: 24,
+              currentKind: 'dc',
+              wireColour: 'BU',
+              wireNumber: `${wire++}`,
+            },
+            stripTag,
+          );
+        }
         pos++;
       } else {
         pos++;
