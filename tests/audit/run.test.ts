@@ -190,6 +190,10 @@ describe('progress and caching', () => {
     // and on its return, 24 V on its signal and on its return. The new inputs on X9 have no
     // exposure. Eight solutions in all.
     expect(r.summary.solverCalls).toBe(8);
+    // A channel with no exposure still gets the project-wide surge and ESD, and no nearest hazard.
+    const quiet = r.findings.filter((f) => f.channelTag === 'AI-200');
+    expect(quiet.map((f) => f.caseId)).toEqual(['surge+', 'surge-', 'esd+', 'esd-']);
+    expect(r.channels.find((c) => c.tag === 'AI-200')!.nearestHazard).toBeNull();
     expect(r.findings.length).toBeGreaterThan(120);
   });
 
