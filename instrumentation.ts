@@ -2,5 +2,12 @@
 export async function register() {
   if (process.env.NEXT_RUNTIME !== 'nodejs') return;
   const { readEnv } = await import('./lib/env');
-  readEnv();
+  try {
+    readEnv();
+  } catch (error) {
+    // Next only logs a failing hook and keeps serving; a server that cannot sign sessions
+    // safely must not answer at all.
+    console.error(`Crossfault: ${error instanceof Error ? error.message : String(error)}`);
+    process.exit(1);
+  }
 }

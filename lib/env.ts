@@ -32,7 +32,10 @@ export function readEnv(source: Record<string, string | undefined> = process.env
   }
   const env = parsed.data;
   const secret = env.NEXTAUTH_SECRET;
-  if (env.NODE_ENV === 'production') {
+  // `next build` loads server modules with NODE_ENV=production but serves nothing; the check
+  // applies when the server starts (instrumentation.ts) and on every request after.
+  const building = source.NEXT_PHASE === 'phase-production-build';
+  if (env.NODE_ENV === 'production' && !building) {
     if (!secret || secret === DEV_SECRET || secret.length < 32) {
       throw new ConfigurationError(
         'NEXTAUTH_SECRET must be set to a random string of at least 32 characters in production ' +

@@ -23,6 +23,7 @@ if (!existsSync(secretFile)) writeFileSync(secretFile, randomBytes(32).toString(
 const port = process.env.PORT ?? '3000';
 const env = {
   ...process.env,
+  NEXT_TELEMETRY_DISABLED: '1',
   NEXTAUTH_SECRET: process.env.NEXTAUTH_SECRET ?? readFileSync(secretFile, 'utf8').trim(),
   NEXTAUTH_URL: process.env.NEXTAUTH_URL ?? `http://localhost:${port}`,
 };

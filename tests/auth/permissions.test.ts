@@ -64,3 +64,10 @@ describe('environment', () => {
     expect(() => readEnv({ SMTP_PORT: 'abc' })).toThrow(/SMTP_PORT/);
   });
 });
+
+describe('environment during a production build', () => {
+  it('does not demand the secret while next build collects pages, only when serving', () => {
+    expect(() => readEnv({ NODE_ENV: 'production', NEXT_PHASE: 'phase-production-build' })).not.toThrow();
+    expect(() => readEnv({ NODE_ENV: 'production', NEXT_PHASE: 'phase-production-server' })).toThrow(/NEXTAUTH_SECRET/);
+  });
+});
