@@ -218,6 +218,9 @@ describe('the schedule list: paging, sorting, filtering', () => {
     const badSort = await q({ sort: 'passwordHash' });
     expect(badSort.status).toBe(422);
     expect(badSort.body.fieldErrors.sort[0]).toMatch(/sort must be one of/);
+    // A list row is the same record the single-terminal read answers (dates included).
+    const all = await q({});
+    for (const row of all.body.items) expect(row).toEqual(await terminalRow(row.id));
     const tooBig = await q({ pageSize: 5001 });
     expect(tooBig.status).toBe(422);
   });
