@@ -78,17 +78,32 @@ export function strip(tag: string, name: string, entries: StripEntry[], wires: W
       const level = i + 1;
       const number = t.terminalNumber ?? null;
       const label = number === null ? `${tag}:${position}` : `${tag}:${number}`;
-      const wireNumber =
-        t.wireNumber !== undefined ? t.wireNumber : t.circuitClass === 'spare' ? null : t.circuitClass === 'earth' ? 'PE' : wires.next();
+      const wireNumber = t.wireNumber !== undefined ? t.wireNumber : wires.numberFor(t);
       terminals.push({ ...t, position, level, label, blockId, wireNumber });
     });
   });
   return { tag, name, terminals };
 }
 
-/** Sequential wire numbers for one cabinet, skipping numbers planted on purpose elsewhere. */
+/** Prefix of a potential's wire numbers (L1, N1, M1 …); signal wires are plain numbers. */
+const POTENTIAL_PREFIX: Record<string, string> = {
+  'mains-line': 'L',
+  'mains-neutral': 'N',
+  'motor-output': 'M',
+  'heater-output': 'H',
+  'dc-supply': '+24-',
+  other: 'C',
+};
+
+/**
+ * Wire numbers for one cabinet: signal and return wires numbered in sequence, power and
+ * supply wires by potential; terminals of one jumper group are one node, so one number.
+ * Numbers planted on purpose elsewhere are skipped.
+ */
 export class WireNumbers {
   private n: number;
+  private readonly byPrefix = new Map<string, number>();
+  private readonly byBridge = new Map<string, string>();
   constructor(
     start: number,
     private readonly reserved: ReadonlySet<string> = new Set(),
@@ -98,6 +113,27 @@ export class WireNumbers {
   next(): string {
     while (this.reserved.has(String(this.n))) this.n += 1;
     return String(this.n++);
+  }
+  numberFor(t: TerminalEntry): string | null {
+    if (t.circuitClass === 'spare' || t.circuitClass === 'barrier') return null;
+    if (t.circuitClass === 'earth') return 'PE';
+    const bridged = t.bridgeGroup ? this.byBridge.get(t.bridgeGroup) : undefined;
+    if (bridged) return bridged;
+    let wire: string;
+    if (t.circuitClass === 'hazard') {
+      const prefix = POTENTIAL_PREFIX[t.hazardKind ?? 'other'] ?? 'C';
+      const k = (this.byPrefix.get(prefix) ?? 0) + 1;
+      this.byPrefix.set(prefix, k);
+      wire = `${prefix}${k}`;
+    } else if (t.circuitClass === 'return' && !t.channel) {
+      const k = (this.byPrefix.get('0V-') ?? 0) + 1;
+      this.byPrefix.set('0V-', k);
+      wire = `0V-${k}`;
+    } else {
+      wire = this.next();
+    }
+    if (t.bridgeGroup) this.byBridge.set(t.bridgeGroup, wire);
+    return wire;
   }
 }
 

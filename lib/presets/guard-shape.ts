@@ -4,72 +4,117 @@
  * judge whether values are sensible — that is the engine's job. Pure; shared by the model
  * validator, seeders and forms.
  */
-import type { Guard } from '@/lib/stress/types';
+import type { Guard, ProtectedInput, SeriesElement, ShuntElement } from '@/lib/stress/types';
 
-type FieldSpec = { required: readonly string[]; optional: readonly string[]; booleans?: readonly string[] };
+/** How a field must appear: a required or optional finite number, or a boolean. */
+type Role = 'number' | 'number?' | 'boolean' | 'boolean?';
+type FieldSpec = Readonly<Record<string, Role>>;
 
-const SERIES: Record<string, FieldSpec> = {
-  resistor: { required: ['resistance'], optional: ['ratedPower', 'limitingVoltage', 'overloadVoltage', 'pulseEnergy'] },
-  ptc: { required: ['resistance', 'holdCurrent', 'tripCurrent'], optional: ['maxVoltage', 'maxCurrent'] },
-  fuse: { required: ['ratedCurrent'], optional: ['voltageRating', 'meltingI2t', 'resistance'] },
-  wire: { required: ['resistance'], optional: [] },
+/**
+ * One entry per field of each element type (Record over its keys): this fails to compile
+ * when lib/stress/types.ts gains or loses a field, so the list cannot drift from the engine's.
+ */
+type SpecOf<E> = Readonly<Record<Exclude<keyof E, 'kind' | 'id'>, Role>>;
+type SeriesSpecs = { [K in SeriesElement['kind']]: SpecOf<Extract<SeriesElement, { kind: K }>> };
+type ShuntSpecs = { [K in ShuntElement['kind']]: SpecOf<Extract<ShuntElement, { kind: K }>> };
+
+const SERIES: SeriesSpecs = {
+  resistor: { resistance: 'number', ratedPower: 'number?', limitingVoltage: 'number?', overloadVoltage: 'number?', pulseEnergy: 'number?' },
+  ptc: { resistance: 'number', holdCurrent: 'number', tripCurrent: 'number', maxVoltage: 'number?', maxCurrent: 'number?' },
+  fuse: { ratedCurrent: 'number', voltageRating: 'number?', meltingI2t: 'number?', resistance: 'number?' },
+  wire: { resistance: 'number' },
 };
 
-const SHUNT: Record<string, FieldSpec> = {
+const SHUNT: ShuntSpecs = {
   railDiodes: {
-    required: ['forwardVoltage', 'forwardCurrent'],
-    optional: ['averageCurrent', 'surgeCurrent', 'surgeDuration'],
+    forwardVoltage: 'number',
+    forwardCurrent: 'number',
+    averageCurrent: 'number?',
+    surgeCurrent: 'number?',
+    surgeDuration: 'number?',
+    emissionCoefficient: 'number?',
+    seriesResistance: 'number?',
   },
   zener: {
-    required: ['zenerVoltage', 'dynamicImpedance'],
-    optional: ['testCurrent', 'powerRating'],
-    booleans: ['bidirectional'],
+    bidirectional: 'boolean',
+    zenerVoltage: 'number',
+    dynamicImpedance: 'number',
+    testCurrent: 'number?',
+    powerRating: 'number?',
+    forwardVoltage: 'number?',
+    forwardCurrent: 'number?',
   },
   tvs: {
-    required: ['standoffVoltage', 'breakdownVoltage', 'clampVoltage', 'peakPulseCurrent'],
-    optional: ['peakPulsePower'],
-    booleans: ['bidirectional'],
+    bidirectional: 'boolean',
+    standoffVoltage: 'number',
+    breakdownVoltage: 'number',
+    clampVoltage: 'number',
+    peakPulseCurrent: 'number',
+    peakPulsePower: 'number?',
+    testCurrent: 'number?',
+    steadyPower: 'number?',
+    forwardVoltage: 'number?',
+    forwardCurrent: 'number?',
   },
   varistor: {
-    required: ['maxContinuousVoltage', 'varistorVoltage', 'clampVoltage', 'clampCurrent'],
-    optional: ['surgeCurrent', 'surgeEnergy'],
+    maxContinuousVoltage: 'number',
+    varistorVoltage: 'number',
+    clampVoltage: 'number',
+    clampCurrent: 'number',
+    surgeCurrent: 'number?',
+    surgeEnergy: 'number?',
+    maxContinuousDcVoltage: 'number?',
   },
-  capacitor: { required: ['capacitance'], optional: ['voltageRating'] },
-  shuntResistor: { required: ['resistance'], optional: ['ratedPower', 'limitingVoltage', 'overloadVoltage'] },
+  capacitor: { capacitance: 'number', voltageRating: 'number?' },
+  shuntResistor: { resistance: 'number', ratedPower: 'number?', limitingVoltage: 'number?', overloadVoltage: 'number?' },
 };
 
-const INPUT: FieldSpec = {
-  required: ['positiveRail', 'negativeRail', 'absMaxBeyondRail'],
-  optional: ['absMaxCurrent', 'inputResistance', 'positiveRailMinLoad', 'negativeRailMinLoad'],
-  booleans: ['internalClamps'],
+const INPUT: SpecOf<ProtectedInput> = {
+  positiveRail: 'number',
+  negativeRail: 'number',
+  absMaxBeyondRail: 'number',
+  absMaxCurrent: 'number?',
+  inputResistance: 'number?',
+  positiveRailMinLoad: 'number?',
+  negativeRailMinLoad: 'number?',
+  internalClamps: 'boolean?',
+  clampForwardVoltage: 'number?',
+  clampForwardCurrent: 'number?',
 };
 
 function isObject(value: unknown): value is Record<string, unknown> {
   return typeof value === 'object' && value !== null && !Array.isArray(value);
 }
 
-function checkFields(where: string, value: Record<string, unknown>, spec: FieldSpec, problems: string[]): void {
-  for (const key of spec.required) {
-    const v = value[key];
-    if (typeof v !== 'number' || !Number.isFinite(v)) problems.push(`${where}.${key} is required (a number in SI units).`);
+function checkFields(
+  where: string,
+  value: Record<string, unknown>,
+  spec: FieldSpec,
+  problems: string[],
+  ignore: readonly string[] = [],
+): void {
+  // A misspelt rating would otherwise be ignored and the part judged without it.
+  for (const key of Object.keys(value)) {
+    if (!Object.hasOwn(spec, key) && !ignore.includes(key)) problems.push(`${where}.${key} is not a field of this element.`);
   }
-  for (const key of spec.optional) {
+  for (const [key, role] of Object.entries(spec)) {
     const v = value[key];
-    if (v !== undefined && (typeof v !== 'number' || !Number.isFinite(v))) {
-      problems.push(`${where}.${key} must be a number in SI units when given.`);
+    const optional = role.endsWith('?');
+    if (v === undefined && optional) continue;
+    if (role.startsWith('number')) {
+      if (typeof v !== 'number' || !Number.isFinite(v)) {
+        problems.push(optional ? `${where}.${key} must be a number in SI units when given.` : `${where}.${key} is required (a number in SI units).`);
+      }
+    } else if (typeof v !== 'boolean') {
+      problems.push(`${where}.${key} must be true or false.`);
     }
-  }
-  for (const key of spec.booleans ?? []) {
-    const v = value[key];
-    const required = key === 'bidirectional';
-    if ((required || v !== undefined) && typeof v !== 'boolean') problems.push(`${where}.${key} must be true or false.`);
   }
 }
 
 function checkElement(
   where: string,
   element: unknown,
-  kinds: Record<string, FieldSpec>,
+  kinds: Readonly<Record<string, FieldSpec>>,
   ids: Set<string>,
   problems: string[],
 ): void {
@@ -78,7 +123,7 @@ function checkElement(
     return;
   }
   const kind = element.kind;
-  if (typeof kind !== 'string' || !(kind in kinds)) {
+  if (typeof kind !== 'string' || !Object.hasOwn(kinds, kind)) {
     problems.push(`${where}.kind must be one of: ${Object.keys(kinds).join(', ')}.`);
     return;
   }
@@ -89,7 +134,7 @@ function checkElement(
   } else {
     ids.add(element.id);
   }
-  checkFields(where, element, kinds[kind], problems);
+  checkFields(where, element, kinds[kind], problems, ['kind', 'id']);
 }
 
 /** Problems with the guard's shape, each naming the path; empty when it is well formed. */

@@ -57,23 +57,38 @@ const smallSignalRailDiodes = (id: string) =>
 
 // ------------------------------------------------------------------ input presets
 
+/** 1.5 kW (10/1000 µs) unidirectional TVS, 33.3 V stand-off: VBR 37.1 V min, VC 53.9 V at 27.8 A (from memory). */
+const tvs1500W33V = (id: string) =>
+  ({
+    kind: 'tvs',
+    id,
+    bidirectional: false,
+    standoffVoltage: 33.3,
+    breakdownVoltage: 37.1,
+    clampVoltage: 53.9,
+    peakPulseCurrent: 27.8,
+    peakPulsePower: 1500,
+  }) as const;
+
 /**
- * 24 V DC sinking (current-sinking, "positive logic") digital input: series resistor into an
- * optocoupler branch, a TVS and a small filter capacitor at the terminal side. At 24 V the
- * branch draws about 24 V / 4.4 kΩ ≈ 5.5 mA, inside the 2–15 mA ON band of an IEC 61131-2
- * type 1 input.
+ * 24 V DC sinking (current-sinking, "positive logic") digital input: a TVS right at the
+ * terminal, then the series resistor and a small filter capacitor into an optocoupler
+ * branch. At 24 V the branch draws about 24 V / 4.4 kΩ ≈ 5.5 mA, inside the 2–15 mA ON band
+ * of an IEC 61131-2 type 1 input.
  */
 export const DIGITAL_24V_SINKING: GuardPreset = {
   key: 'di-24v-sinking',
   name: '24 V DC sinking digital input',
   description:
-    'Series 2k2 0.5 W resistor, 33 V unidirectional TVS and 10 nF to 0 V, into an optocoupler input branch (≈ 2k2 equivalent).',
+    '1.5 kW 33 V unidirectional TVS at the terminal; series 2k2 0.5 W resistor and 10 nF to 0 V, into an optocoupler input branch (≈ 2k2 equivalent).',
   caution: TYPICAL_CAUTION,
   guard: {
     stages: [
+      { series: { kind: 'wire', id: 'W1', resistance: 0.05 }, shunts: [tvs1500W33V('D1')] },
       {
-        series: { kind: 'resistor', id: 'R1', resistance: 2200, ratedPower: 0.5, limitingVoltage: 350 },
-        shunts: [tvs600W33V('D1', false), { kind: 'capacitor', id: 'C1', capacitance: 10e-9, voltageRating: 100 }],
+        // 0207-size film resistor; single-pulse energy of the order of 0.1 J (from memory).
+        series: { kind: 'resistor', id: 'R1', resistance: 2200, ratedPower: 0.5, limitingVoltage: 350, pulseEnergy: 0.1 },
+        shunts: [{ kind: 'capacitor', id: 'C1', capacitance: 10e-9, voltageRating: 100 }],
       },
     ],
     input: {

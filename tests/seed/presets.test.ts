@@ -24,9 +24,10 @@ describe('guard presets', () => {
   });
 
   it('24 V sinking input draws an IEC 61131-2 type 1 ON current at 24 V (2–15 mA, from memory)', () => {
-    const r1 = DIGITAL_24V_SINKING.guard.stages[0]!.series;
-    expect(r1.kind).toBe('resistor');
-    const current = 24 / ((r1 as { resistance: number }).resistance + DIGITAL_24V_SINKING.guard.input.inputResistance!);
+    const series = DIGITAL_24V_SINKING.guard.stages.map((s) => s.series);
+    const seriesResistance = series.reduce((sum, e) => sum + ('resistance' in e && e.resistance !== undefined ? e.resistance : 0), 0);
+    expect(series.map((e) => e.kind)).toContain('resistor');
+    const current = 24 / (seriesResistance + DIGITAL_24V_SINKING.guard.input.inputResistance!);
     expect(current).toBeGreaterThan(0.002);
     expect(current).toBeLessThan(0.015);
   });
@@ -62,6 +63,25 @@ describe('guard presets', () => {
   });
 });
 
+describe('guardShapeProblems', () => {
+  it('names a misspelt rating instead of letting the part be judged without it', () => {
+    const guard = structuredClone(DIGITAL_24V_SINKING.guard) as unknown as { stages: Array<{ series: Record<string, unknown> }> };
+    guard.stages[1]!.series.ratedpower = 0.5;
+    expect(guardShapeProblems(guard)).toEqual(['guard.stages[1].series.ratedpower is not a field of this element.']);
+  });
+
+  it('names an unknown element kind and a missing boolean', () => {
+    const problems = guardShapeProblems({
+      stages: [{ series: { kind: 'gdt', id: 'G1' }, shunts: [{ kind: 'tvs', id: 'D1', standoffVoltage: 33, breakdownVoltage: 36.7, clampVoltage: 53.3, peakPulseCurrent: 11.3 }] }],
+      input: { positiveRail: 24, negativeRail: 0, absMaxBeyondRail: 0.3 },
+    });
+    expect(problems).toEqual([
+      'guard.stages[0].series.kind must be one of: resistor, ptc, fuse, wire.',
+      'guard.stages[0].shunts[0].bidirectional must be true or false.',
+    ]);
+  });
+});
+
 describe('withTerminalBlock', () => {
   it('puts the block on the field side and keeps the input', () => {
     const g = withTerminalBlock(VARISTOR_SURGE_TERMINAL, CURRENT_LOOP_4_20_BURDEN.guard);
@@ -81,9 +101,9 @@ describe('applyGuardOverrides', () => {
     const recipe = DIGITAL_24V_SINKING.guard;
     const out = applyGuardOverrides(recipe, { elements: { R1: { resistance: 1000, ratedPower: 0.25 } }, input: { absMaxCurrent: 0.03 } });
     expect(out.problems).toEqual([]);
-    expect(out.guard!.stages[0]!.series).toMatchObject({ kind: 'resistor', id: 'R1', resistance: 1000, ratedPower: 0.25, limitingVoltage: 350 });
+    expect(out.guard!.stages[1]!.series).toMatchObject({ kind: 'resistor', id: 'R1', resistance: 1000, ratedPower: 0.25, limitingVoltage: 350 });
     expect(out.guard!.input.absMaxCurrent).toBe(0.03);
-    expect((recipe.stages[0]!.series as { resistance: number }).resistance).toBe(2200);
+    expect((recipe.stages[1]!.series as { resistance: number }).resistance).toBe(2200);
   });
 
   it('reports an unknown element and a non-numeric figure instead of dropping them', () => {
