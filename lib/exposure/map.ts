@@ -81,12 +81,34 @@ export interface WiringIndex {
   cabinetOfStrip: Map<string, string>;
   layouts: Map<string, StripLayout>;
   channelsOfTerminal: Map<string, string[]>;
-  hazardsByBlock: Map<string, TerminalSnapshot[]>;
+  /** strip → block id → hazards. */
+  hazardsByBlock: Scoped;
   hazardsByCable: Map<string, TerminalSnapshot[]>;
-  hazardsByConnector: Map<string, TerminalSnapshot[]>;
-  hazardsByNumber: Map<string, TerminalSnapshot[]>;
-  hazardsByWire: Map<string, TerminalSnapshot[]>;
+  /** cabinet → connector → hazards. */
+  hazardsByConnector: Scoped;
+  /** cabinet → terminal number → hazards. */
+  hazardsByNumber: Scoped;
+  /** cabinet → normalised wire number → hazards. */
+  hazardsByWire: Scoped;
+  /** cabinet → every number `similar` to a hazard's wire number → those hazards. */
+  hazardsBySimilarWire: Scoped;
   targetIds: string[];
+}
+
+/** Two-level index (scope, then key): look-ups without building composite key strings. */
+type Scoped = Map<string, Map<string, TerminalSnapshot[]>>;
+
+function pushScoped(m: Scoped, scope: string, key: string, t: TerminalSnapshot): void {
+  let inner = m.get(scope);
+  if (!inner) m.set(scope, (inner = new Map()));
+  const list = inner.get(key);
+  if (list) {
+    if (list[list.length - 1] !== t) list.push(t);
+  } else inner.set(key, [t]);
+}
+
+function getScoped(m: Scoped, scope: string, key: string): TerminalSnapshot[] | undefined {
+  return m.get(scope)?.get(key);
 }
 
 function push<K, V>(m: Map<K, V[]>, k: K, v: V): void {
@@ -118,6 +140,7 @@ export function buildWiringIndex(w: WiringSnapshot): WiringIndex {
     hazardsByConnector: new Map(),
     hazardsByNumber: new Map(),
     hazardsByWire: new Map(),
+    hazardsBySimilarWire: new Map(),
     targetIds: [],
   };
   const targets = new Set<string>();
@@ -127,13 +150,20 @@ export function buildWiringIndex(w: WiringSnapshot): WiringIndex {
     if (isTargetClass(t)) targets.add(t.id);
     if (!isHazard(t)) continue;
     const cabinet = cabinetOfStrip.get(t.stripId) ?? '';
-    if (present(t.blockId)) push(idx.hazardsByBlock, `${t.stripId}\u0000${t.blockId}`, t);
+    if (present(t.blockId)) pushScoped(idx.hazardsByBlock, t.stripId, t.blockId, t);
     if (present(t.cableId)) push(idx.hazardsByCable, t.cableId, t);
-    if (present(t.connector)) push(idx.hazardsByConnector, `${cabinet}\u0000${t.connector}`, t);
+    if (present(t.connector)) pushScoped(idx.hazardsByConnector, cabinet, t.connector, t);
     const num = terminalNumberOf(t);
-    if (num !== null) push(idx.hazardsByNumber, `${cabinet}\u0000${num}`, t);
+    if (num !== null) pushScoped(idx.hazardsByNumber, cabinet, num, t);
     const wire = normaliseWireNumber(t.wireNumber);
-    if (wire !== null) push(idx.hazardsByWire, `${cabinet}\u0000${wire}`, t);
+    if (wire !== null) {
+      pushScoped(idx.hazardsByWire, cabinet, wire, t);
+      // Similarity is symmetric, so indexing each hazard under its variants lets a target
+      // find its look-alikes with one look-up (hazards are far fewer than targets).
+      forEachSimilarWireNumber(wire, (variant) =>
+        pushScoped(idx.hazardsBySimilarWire, cabinet, variant, t),
+      );
+    }
   }
   for (const [stripId, list] of byStrip) idx.layouts.set(stripId, buildStripLayout(list));
   for (const c of w.channels) {
@@ -346,7 +376,7 @@ export function mapExposures(w: WiringSnapshot, options: ExposureOptions = {}): 
 
     // Stacked: another level of the same block (or of the same position, when no block id).
     const stacked = present(t.blockId)
-      ? idx.hazardsByBlock.get(`${t.stripId}\u0000${t.blockId}`)
+      ? getScoped(idx.hazardsByBlock, t.stripId, t.blockId)
       : t.level != null
         ? layout.byPosition.get(t.position)?.filter((h) => isHazard(h) && h.level != null)
         : undefined;
@@ -371,7 +401,7 @@ export function mapExposures(w: WiringSnapshot, options: ExposureOptions = {}): 
       }
     }
     if (present(t.connector)) {
-      for (const h of idx.hazardsByConnector.get(`${cabinet}\u0000${t.connector}`) ?? []) {
+      for (const h of getScoped(idx.hazardsByConnector, cabinet, t.connector) ?? []) {
         emit(
           t,
           h,
@@ -383,7 +413,7 @@ export function mapExposures(w: WiringSnapshot, options: ExposureOptions = {}): 
 
     const num = terminalNumberOf(t);
     if (num !== null) {
-      for (const h of idx.hazardsByNumber.get(`${cabinet}\u0000${num}`) ?? []) {
+      for (const h of getScoped(idx.hazardsByNumber, cabinet, num) ?? []) {
         if (h.stripId === t.stripId) continue;
         emit(
           t,
@@ -395,7 +425,7 @@ export function mapExposures(w: WiringSnapshot, options: ExposureOptions = {}): 
     }
     const wire = normaliseWireNumber(t.wireNumber);
     if (wire !== null) {
-      for (const h of idx.hazardsByWire.get(`${cabinet}\u0000${wire}`) ?? []) {
+      for (const h of getScoped(idx.hazardsByWire, cabinet, wire) ?? []) {
         emit(
           t,
           h,
@@ -403,18 +433,14 @@ export function mapExposures(w: WiringSnapshot, options: ExposureOptions = {}): 
           `${h.label} (${describeHazard(h)}) carries the same wire number ${wire} as ${t.label}`,
         );
       }
-      forEachSimilarWireNumber(wire, (variant) => {
-        const hits = idx.hazardsByWire.get(`${cabinet}\u0000${variant}`);
-        if (!hits) return;
-        for (const h of hits) {
-          emit(
-            t,
-            h,
-            'wire-number-similar',
-            `${h.label} (${describeHazard(h)}) wire number ${variant} reads like ${wire} on ${t.label}`,
-          );
-        }
-      });
+      for (const h of getScoped(idx.hazardsBySimilarWire, cabinet, wire) ?? []) {
+        emit(
+          t,
+          h,
+          'wire-number-similar',
+          `${h.label} (${describeHazard(h)}) wire number ${normaliseWireNumber(h.wireNumber)} reads like ${wire} on ${t.label}`,
+        );
+      }
     }
   }
 
