@@ -8,7 +8,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { Sequelize, type Options } from 'sequelize';
 import sqlite3 from 'sqlite3';
-import { initModels, type Models } from '@/models';
+import { initModels, models, type Models } from '@/models';
 
 export * from '@/models';
 
@@ -53,37 +53,45 @@ export function createSequelize(config: DbConfig = configFromEnv()): Sequelize {
   return new Sequelize(sqliteOptions(storage, logging));
 }
 
-type DbGlobal = typeof globalThis & { __crossfaultDb?: Db };
+type DbGlobal = typeof globalThis & { __crossfaultSequelize?: Sequelize };
 const holder = globalThis as DbGlobal;
-let cached: Db | undefined;
+let current: Sequelize | undefined;
 
-function remember(db: Db): Db {
-  cached = db;
-  if (process.env.NODE_ENV !== 'production') holder.__crossfaultDb = db;
-  return db;
+function remember(sequelize: Sequelize): void {
+  current = sequelize;
+  if (process.env.NODE_ENV !== 'production') holder.__crossfaultSequelize = sequelize;
 }
 
-/** The app's database: the cached instance with every model bound to it. */
+/**
+ * Binds this module's model classes to `sequelize` unless they already are. After a dev
+ * reload (or in a second module graph of the same server) the classes are fresh copies while
+ * the kept instance is the same, so they are bound once more, and only once.
+ */
+function bound(sequelize: Sequelize): Db {
+  if (models.User.sequelize !== sequelize) initModels(sequelize);
+  return { sequelize, models };
+}
+
+/** The app's database: the one instance, with every model bound to it. */
 export function getDb(): Db {
-  const existing = cached ?? holder.__crossfaultDb;
-  if (existing) {
-    // After a dev reload the model classes may be fresh copies: bind them to the kept instance.
-    if (!existing.models.User.sequelize) return remember({ sequelize: existing.sequelize, models: initModels(existing.sequelize) });
-    return remember(existing);
+  let sequelize = current ?? holder.__crossfaultSequelize;
+  if (!sequelize) {
+    sequelize = createSequelize();
+    remember(sequelize);
   }
-  const sequelize = createSequelize();
-  return remember({ sequelize, models: initModels(sequelize) });
+  return bound(sequelize);
 }
 
 /** Makes `sequelize` the app's database and binds the models to it (tests, scripts). */
 export function useDatabase(sequelize: Sequelize): Db {
-  return remember({ sequelize, models: initModels(sequelize) });
+  remember(sequelize);
+  return bound(sequelize);
 }
 
-/** Closes the cached instance, if any; the next getDb() opens a new one. */
+/** Closes the app's instance, if any; the next getDb() opens a new one. */
 export async function closeDb(): Promise<void> {
-  const db = cached ?? holder.__crossfaultDb;
-  cached = undefined;
-  delete holder.__crossfaultDb;
-  if (db) await db.sequelize.close();
+  const sequelize = current ?? holder.__crossfaultSequelize;
+  current = undefined;
+  delete holder.__crossfaultSequelize;
+  if (sequelize) await sequelize.close();
 }
