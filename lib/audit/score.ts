@@ -35,12 +35,15 @@ export function marginOf(result: StressResult): number | null {
  *   score = likelihood weight × (verdict severity + u / (1 + u))
  *
  * verdict severity is VERDICT_SEVERITY (holds 0, marginal 1, incomplete 2, fails 3,
- * unprotected 4) and u the worst utilisation of an absolute rating. u/(1+u) lies in [0, 1),
- * so within one verdict the harder-pressed guard scores higher but never overtakes the next
- * verdict at equal likelihood; across likelihoods a plausible failure (0.3 × 3.x) outranks a
- * likely hold (1 × <1). Equal scores fall to the higher source peak voltage, then the key.
+ * unprotected 4) and u the worst utilisation of an absolute rating — at least 1 for `fails`
+ * and `unprotected`, which are beyond an absolute rating by definition even when the rating
+ * exceeded is the input's own. u/(1+u) lies in [0, 1), so within one verdict the harder-pressed
+ * guard scores higher but never overtakes the next verdict at equal likelihood; with the
+ * default weights a plausible failure (0.3 × ≥ 3.5) outranks any likely hold (1 × < 1).
+ * Equal scores fall to the higher source peak voltage, then the finding key.
  */
 export function hazardScore(weight: number, verdict: Verdict, utilisation: number): number {
-  const u = Math.max(0, utilisation);
+  const floor = verdict === 'fails' || verdict === 'unprotected' ? 1 : 0;
+  const u = Math.max(floor, utilisation);
   return weight * (VERDICT_SEVERITY[verdict] + u / (1 + u));
 }

@@ -7,7 +7,7 @@ import { VERDICT_SEVERITY, type Verdict } from '@/lib/stress/types';
 const verdicts = Object.keys(VERDICT_SEVERITY) as Verdict[];
 
 describe('nearest-hazard score', () => {
-  it('a plausible failure outranks a likely hold, however hard the hold is pressed', () => {
+  it('with the default weights (0.3, 1), a plausible failure outranks a likely hold, however hard pressed', () => {
     expect(hazardScore(0.3, 'fails', 0)).toBeGreaterThan(hazardScore(1, 'holds', 1e9));
   });
 
