@@ -117,31 +117,19 @@ function matchUnit(rest: string): string | null {
   return UNIT_ALIASES[rest] !== undefined ? rest : null;
 }
 
-const FORMAT_PREFIXES: [number, string][] = [
-  [1e9, 'G'],
-  [1e6, 'M'],
-  [1e3, 'k'],
-  [1, ''],
-  [1e-3, 'm'],
-  [1e-6, 'µ'],
-  [1e-9, 'n'],
-  [1e-12, 'p'],
-];
+const FORMAT_PREFIX_BY_EXPONENT: Record<number, string> = { 9: 'G', 6: 'M', 3: 'k', 0: '', [-3]: 'm', [-6]: 'µ', [-9]: 'n', [-12]: 'p' };
 
 /** 0.0167, 'A' → "16.7 mA"; 2460, 'Ω' → "2.46 kΩ". Three significant figures by default. */
 export function formatEng(value: number, unit = '', significant = 3): string {
   const space = unit === '' ? '' : ' ';
   if (!Number.isFinite(value)) return `${String(value)}${space}${unit}`;
   if (value === 0) return `0${space}${unit}`;
-  const magnitude = Math.abs(value);
-  let scale = FORMAT_PREFIXES[FORMAT_PREFIXES.length - 1];
-  for (const entry of FORMAT_PREFIXES) {
-    // Round first so 999.96 reads "1 k" rather than "1000".
-    if (Number((magnitude / entry[0]).toPrecision(significant)) >= 1) {
-      scale = entry;
-      break;
-    }
+  let exponent = Math.min(9, Math.max(-12, 3 * Math.floor(Math.log10(Math.abs(value)) / 3)));
+  let scaled = Number((value / 10 ** exponent).toPrecision(significant));
+  // Rounding can carry into the next prefix: 999.96 reads "1 k", not "1000".
+  if (Math.abs(scaled) >= 1000 && exponent < 9) {
+    exponent += 3;
+    scaled = Number((value / 10 ** exponent).toPrecision(significant));
   }
-  const scaled = Number((value / scale[0]).toPrecision(significant));
-  return `${String(scaled)}${space}${scale[1]}${unit}`;
+  return `${String(scaled)}${space}${FORMAT_PREFIX_BY_EXPONENT[exponent]}${unit}`;
 }
