@@ -74,7 +74,7 @@ describe('the sample with three bad rows', () => {
       },
       {
         row: await workbookRowOf('cabinet-sample-with-errors.xlsx', 'X33:3.1'),
-        errors: [{ column: 'voltage', message: 'nominalVoltage is required on a hazard terminal (V, RMS for AC).' }],
+        errors: [{ column: 'voltage', message: 'voltage is required on a hazard terminal (V, RMS for AC).' }],
       },
     ]);
     expect(res.body.errorCount).toBe(3);
@@ -185,6 +185,16 @@ describe('bad uploads are refused with a clear message and change nothing', () =
     expect(commit.status).toBe(422);
     expect(commit.body.error).toMatch(/column mapping needs attention/);
     expect(await snapshot()).toEqual(before);
+  });
+
+  it('a hazard row in a file without the hazard columns says which columns are missing', async () => {
+    const csv = 'strip,position,label,circuit_class\nX41,1,X41:1,hazard\n';
+    const res = await upload('short.csv', new TextEncoder().encode(csv));
+    expect(res.body.rows[0].errors).toEqual([
+      { column: 'hazard_kind', message: expect.stringMatching(/^hazard_kind is required on a hazard terminal .*\(the file has no hazard_kind column\)\.$/) },
+      { column: 'voltage', message: 'voltage is required on a hazard terminal (V, RMS for AC) (the file has no voltage column).' },
+      { column: 'ac_dc', message: 'ac_dc is required on a hazard terminal (ac or dc) (the file has no ac_dc column).' },
+    ]);
   });
 
   it('a file with its own headers imports through a mapping', async () => {

@@ -7,7 +7,7 @@ import { Op, type Transaction } from 'sequelize';
 import { diffFields, logAction } from '@/lib/data/audit-log';
 import { destroyVersioned, translateDbError, updateVersioned } from '@/lib/data/versioned';
 import { getDb, type Attributes, type Channel, type Strip, type Terminal } from '@/lib/db';
-import { ConflictError, ValidationError } from '@/lib/errors';
+import { ValidationError } from '@/lib/errors';
 import type { ChannelCreate, ChannelUpdate } from '@/lib/validation/channel';
 import { findCabinet, findChannel, inTransaction, type ScheduleActor } from './scope';
 import { lastChange, StaleRecordError, staleChecked } from './stale';

@@ -132,7 +132,9 @@ async function analyse(
       for (const [field, messages] of Object.entries(terminalFactsProblems(merged))) {
         const column = FIELD_COLUMN[field as keyof typeof FIELD_COLUMN] ?? field;
         const absent = mapping[column as keyof ColumnMapping] === undefined ? ` (the file has no ${column} column)` : '';
-        for (const m of messages) r.errors.push({ column, message: `${m.replace(/\.$/, '')}${absent}.` });
+        // Say it in the file's words: "voltage is required…", not the field name behind it.
+        const said = (m: string) => m.replaceAll(field, column).replace(/\.$/, '');
+        for (const m of messages) r.errors.push({ column, message: `${said(m)}${absent}.` });
       }
       action = r.errors.length === 0 ? (match ? 'update' : 'create') : null;
     }
