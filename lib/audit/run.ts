@@ -13,7 +13,6 @@ import {
   type Guard,
   type HazardTerminal,
   type StressConditions,
-  type StressResult,
   type Verdict,
 } from '../stress/types';
 import { canonicalJson } from './canonical';
@@ -50,9 +49,18 @@ interface PreparedHazardCase {
   hazardRef: string;
 }
 
-type Solved =
-  | { ok: true; result: StressResult; utilisation: number; margin: number | null }
-  | { ok: false; reason: string };
+/** What a finding takes from the engine; shared by every finding with the same inputs. */
+type Judgement = Pick<
+  Finding,
+  | 'verdict'
+  | 'reason'
+  | 'margin'
+  | 'utilisation'
+  | 'elements'
+  | 'input'
+  | 'rails'
+  | 'sourcePeakCurrent'
+>;
 
 function compareStrings(a: string, b: string): number {
   return a < b ? -1 : a > b ? 1 : 0;
@@ -104,7 +112,7 @@ export function runAuditWith(
 
   // Many channels share a recipe: one guard object and one solution per distinct input.
   const guards = new Map<string, Guard>();
-  const solved = new Map<string, Solved>();
+  const solved = new Map<string, Judgement>();
   const hazardCases = new Map<string, PreparedHazardCase>();
   let solverCalls = 0;
 
@@ -129,18 +137,33 @@ export function runAuditWith(
     g: { key: string; guard: Guard },
     ac: AuditCase,
     caseKey: string,
-  ): Solved => {
+  ): Judgement => {
     const key = `${g.key}\u0000${caseKey}`;
     let s = solved.get(key);
     if (!s) {
       solverCalls++;
       try {
         const result = solve(g.guard, ac.stress, conditions[ac.appliedTo]);
-        s = { ok: true, result, utilisation: utilisationOf(result), margin: marginOf(result) };
+        s = {
+          verdict: result.verdict,
+          reason: result.reason,
+          margin: marginOf(result),
+          utilisation: utilisationOf(result),
+          elements: result.elements,
+          input: result.input,
+          rails: result.rails,
+          sourcePeakCurrent: result.sourcePeakCurrent,
+        };
       } catch (err) {
         s = {
-          ok: false,
+          verdict: 'incomplete',
           reason: `the engine could not solve ${ac.label}: ${err instanceof Error ? err.message : String(err)}`,
+          margin: null,
+          utilisation: 0,
+          elements: [],
+          input: null,
+          rails: [],
+          sourcePeakCurrent: null,
         };
       }
       solved.set(key, s);
@@ -153,51 +176,17 @@ export function runAuditWith(
     g: { key: string; guard: Guard } | null,
     ac: AuditCase,
     caseKey: string,
-  ): Pick<
-    Finding,
-    | 'verdict'
-    | 'reason'
-    | 'margin'
-    | 'utilisation'
-    | 'elements'
-    | 'input'
-    | 'rails'
-    | 'sourcePeakCurrent'
-  > => {
-    if (!g) {
-      return {
-        verdict: 'unprotected',
-        reason: `${channel.tag} has no guard: ${ac.label} reaches the input with nothing to limit it`,
-        margin: null,
-        utilisation: 0,
-        elements: [],
-        input: null,
-        rails: [],
-        sourcePeakCurrent: null,
-      };
-    }
-    const s = solveCached(g, ac, caseKey);
-    if (!s.ok) {
-      return {
-        verdict: 'incomplete',
-        reason: s.reason,
-        margin: null,
-        utilisation: 0,
-        elements: [],
-        input: null,
-        rails: [],
-        sourcePeakCurrent: null,
-      };
-    }
+  ): Judgement => {
+    if (g) return solveCached(g, ac, caseKey);
     return {
-      verdict: s.result.verdict,
-      reason: s.result.reason,
-      margin: s.margin,
-      utilisation: s.utilisation,
-      elements: s.result.elements,
-      input: s.result.input,
-      rails: s.result.rails,
-      sourcePeakCurrent: s.result.sourcePeakCurrent,
+      verdict: 'unprotected',
+      reason: `${channel.tag} has no guard: ${ac.label} reaches the input with nothing to limit it`,
+      margin: null,
+      utilisation: 0,
+      elements: [],
+      input: null,
+      rails: [],
+      sourcePeakCurrent: null,
     };
   };
 
@@ -218,6 +207,7 @@ export function runAuditWith(
     const own: Finding[] = [];
 
     transients.forEach((ac, i) => {
+      const j = judged(channel, g, ac, transientKeys[i]!);
       own.push({
         key: `${channel.tag}|${ac.id}`,
         channelId: channel.id,
@@ -229,7 +219,14 @@ export function runAuditWith(
         appliedTo: ac.appliedTo,
         exposure: null,
         score: null,
-        ...judged(channel, g, ac, transientKeys[i]!),
+        verdict: j.verdict,
+        reason: j.reason,
+        margin: j.margin,
+        utilisation: j.utilisation,
+        elements: j.elements,
+        input: j.input,
+        rails: j.rails,
+        sourcePeakCurrent: j.sourcePeakCurrent,
       });
       findingsByMechanism.transient++;
     });
@@ -341,17 +338,7 @@ function exposureFinding(
     g: { key: string; guard: Guard } | null,
     ac: AuditCase,
     caseKey: string,
-  ) => Pick<
-    Finding,
-    | 'verdict'
-    | 'reason'
-    | 'margin'
-    | 'utilisation'
-    | 'elements'
-    | 'input'
-    | 'rails'
-    | 'sourcePeakCurrent'
-  >,
+  ) => Judgement,
 ): Finding {
   const built = hc.built;
   const caseId = built.ok ? built.case.id : `${hazard.hazardKind ?? 'other'}:unknown`;
