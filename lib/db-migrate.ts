@@ -22,7 +22,10 @@ export function createMigrator(sequelize: Sequelize, log = false): Umzug<QueryIn
 }
 
 /** Applies every pending migration; returns the names applied. */
-export async function runMigrations(sequelize: Sequelize, options: { log?: boolean } = {}): Promise<string[]> {
+export async function runMigrations(
+  sequelize: Sequelize,
+  options: { log?: boolean } = {},
+): Promise<string[]> {
   const applied = await createMigrator(sequelize, options.log).up();
   return applied.map((m) => m.name);
 }
@@ -37,7 +40,9 @@ export async function revertMigrations(
   return reverted.map((m) => m.name);
 }
 
-export async function migrationStatus(sequelize: Sequelize): Promise<{ executed: string[]; pending: string[] }> {
+export async function migrationStatus(
+  sequelize: Sequelize,
+): Promise<{ executed: string[]; pending: string[] }> {
   const migrator = createMigrator(sequelize);
   const [executed, pending] = await Promise.all([migrator.executed(), migrator.pending()]);
   return { executed: executed.map((m) => m.name), pending: pending.map((m) => m.name) };

@@ -36,7 +36,8 @@ export function configFromEnv(env: NodeJS.ProcessEnv = process.env): DbConfig {
 }
 
 function sqliteOptions(storage: string, logging: Options['logging']): Options {
-  if (storage !== ':memory:') fs.mkdirSync(path.dirname(path.resolve(storage)), { recursive: true });
+  if (storage !== ':memory:')
+    fs.mkdirSync(path.dirname(path.resolve(storage)), { recursive: true });
   // dialectModule: the bundler cannot resolve sqlite3 by name at run time (see STACK.md).
   return { dialect: 'sqlite', dialectModule: sqlite3, storage, logging };
 }
@@ -83,10 +84,13 @@ export function getDb(): Db {
 }
 
 /** Makes `sequelize` the app's database and binds the models to it (tests, scripts). */
-export function useDatabase(sequelize: Sequelize): Db {
+export function bindDatabase(sequelize: Sequelize): Db {
   remember(sequelize);
   return bound(sequelize);
 }
+
+/** @deprecated Old name of bindDatabase (the `use` prefix trips the React hook lint rule). */
+export const useDatabase = bindDatabase;
 
 /** Closes the app's instance, if any; the next getDb() opens a new one. */
 export async function closeDb(): Promise<void> {

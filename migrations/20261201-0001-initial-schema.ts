@@ -4,16 +4,30 @@
  * foreign key. This file is the schema of record; the models must match it
  * (tests/migrations checks that every model attribute has its column).
  */
-import { DataTypes, type ModelAttributeColumnOptions, type QueryInterface, type Transaction } from 'sequelize';
+import {
+  DataTypes,
+  type ModelAttributeColumnOptions,
+  type QueryInterface,
+  type Transaction,
+} from 'sequelize';
 
 type Columns = Record<string, ModelAttributeColumnOptions>;
 
-const id: ModelAttributeColumnOptions = { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true, allowNull: false };
+const id: ModelAttributeColumnOptions = {
+  type: DataTypes.INTEGER,
+  autoIncrement: true,
+  primaryKey: true,
+  allowNull: false,
+};
 const timestamps: Columns = {
   createdAt: { type: DataTypes.DATE, allowNull: false },
   updatedAt: { type: DataTypes.DATE, allowNull: false },
 };
-const version: ModelAttributeColumnOptions = { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 };
+const version: ModelAttributeColumnOptions = {
+  type: DataTypes.INTEGER,
+  allowNull: false,
+  defaultValue: 0,
+};
 
 function ref(
   table: string,
@@ -29,13 +43,23 @@ function ref(
   };
 }
 
-const str = (length: number, allowNull = true, extra: Partial<ModelAttributeColumnOptions> = {}): ModelAttributeColumnOptions => ({
+const str = (
+  length: number,
+  allowNull = true,
+  extra: Partial<ModelAttributeColumnOptions> = {},
+): ModelAttributeColumnOptions => ({
   type: DataTypes.STRING(length),
   allowNull,
   ...extra,
 });
-const text = (allowNull = true): ModelAttributeColumnOptions => ({ type: DataTypes.TEXT, allowNull });
-const json = (allowNull = true): ModelAttributeColumnOptions => ({ type: DataTypes.JSON, allowNull });
+const text = (allowNull = true): ModelAttributeColumnOptions => ({
+  type: DataTypes.TEXT,
+  allowNull,
+});
+const json = (allowNull = true): ModelAttributeColumnOptions => ({
+  type: DataTypes.JSON,
+  allowNull,
+});
 const double = (allowNull = true, defaultValue?: number): ModelAttributeColumnOptions => ({
   type: DataTypes.DOUBLE,
   allowNull,
@@ -46,11 +70,22 @@ const int = (allowNull = true, defaultValue?: number): ModelAttributeColumnOptio
   allowNull,
   ...(defaultValue === undefined ? {} : { defaultValue }),
 });
-const bool = (defaultValue: boolean): ModelAttributeColumnOptions => ({ type: DataTypes.BOOLEAN, allowNull: false, defaultValue });
-const date = (allowNull = true): ModelAttributeColumnOptions => ({ type: DataTypes.DATE, allowNull });
+const bool = (defaultValue: boolean): ModelAttributeColumnOptions => ({
+  type: DataTypes.BOOLEAN,
+  allowNull: false,
+  defaultValue,
+});
+const date = (allowNull = true): ModelAttributeColumnOptions => ({
+  type: DataTypes.DATE,
+  allowNull,
+});
 
 /** Tables in creation order; `down` drops them in reverse. */
-const TABLES: Array<{ name: string; columns: Columns; indexes: Array<{ fields: string[]; unique?: boolean }> }> = [
+const TABLES: Array<{
+  name: string;
+  columns: Columns;
+  indexes: Array<{ fields: string[]; unique?: boolean }>;
+}> = [
   {
     name: 'users',
     columns: {
@@ -237,7 +272,12 @@ const TABLES: Array<{ name: string; columns: Columns; indexes: Array<{ fields: s
       signedAt: date(),
       ...timestamps,
     },
-    indexes: [{ fields: ['projectId'] }, { fields: ['createdById'] }, { fields: ['signedById'] }, { fields: ['inputHash'] }],
+    indexes: [
+      { fields: ['projectId'] },
+      { fields: ['createdById'] },
+      { fields: ['signedById'] },
+      { fields: ['inputHash'] },
+    ],
   },
   {
     name: 'findings',
@@ -330,7 +370,11 @@ const TABLES: Array<{ name: string; columns: Columns; indexes: Array<{ fields: s
       detail: json(),
       createdAt: date(false),
     },
-    indexes: [{ fields: ['projectId', 'createdAt'] }, { fields: ['actorId'] }, { fields: ['entity', 'entityId'] }],
+    indexes: [
+      { fields: ['projectId', 'createdAt'] },
+      { fields: ['actorId'] },
+      { fields: ['entity', 'entityId'] },
+    ],
   },
   {
     name: 'outbox_messages',

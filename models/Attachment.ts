@@ -10,7 +10,10 @@ import { ATTACHMENT_KINDS, STORAGE_KINDS, type AttachmentKind, type StorageKind 
 import { oneOf } from './validators';
 
 /** A stored file (photo, imported schedule); kept outside public/ under a generated name. */
-export class Attachment extends Model<InferAttributes<Attachment>, InferCreationAttributes<Attachment>> {
+export class Attachment extends Model<
+  InferAttributes<Attachment>,
+  InferCreationAttributes<Attachment>
+> {
   declare id: CreationOptional<number>;
   declare projectId: number;
   declare markupId: number | null;
@@ -31,7 +34,11 @@ export class Attachment extends Model<InferAttributes<Attachment>, InferCreation
         projectId: { type: DataTypes.INTEGER, allowNull: false },
         markupId: { type: DataTypes.INTEGER, allowNull: true },
         uploadedById: { type: DataTypes.INTEGER, allowNull: true },
-        kind: { type: DataTypes.STRING(20), allowNull: false, validate: oneOf('kind', ATTACHMENT_KINDS) },
+        kind: {
+          type: DataTypes.STRING(20),
+          allowNull: false,
+          validate: oneOf('kind', ATTACHMENT_KINDS),
+        },
         originalName: {
           type: DataTypes.STRING(255),
           allowNull: false,
@@ -42,7 +49,12 @@ export class Attachment extends Model<InferAttributes<Attachment>, InferCreation
           allowNull: false,
           unique: true,
           // Generated names only: no path separators, no leading dot.
-          validate: { is: { args: /^[A-Za-z0-9][A-Za-z0-9._-]*$/, msg: 'storedName must be a generated file name.' } },
+          validate: {
+            is: {
+              args: /^[A-Za-z0-9][A-Za-z0-9._-]*$/,
+              msg: 'storedName must be a generated file name.',
+            },
+          },
         },
         mimeType: { type: DataTypes.STRING(100), allowNull: false },
         size: {

@@ -80,7 +80,10 @@ export class AuditRun extends Model<InferAttributes<AuditRun>, InferCreationAttr
         tableName: 'audit_runs',
         validate: {
           signedHasSigner(this: AuditRun) {
-            if (this.reviewState === 'signed' && (this.signedById == null || this.signedAt == null)) {
+            if (
+              this.reviewState === 'signed' &&
+              (this.signedById == null || this.signedAt == null)
+            ) {
               throw new Error('a signed audit run needs signedById and signedAt.');
             }
           },

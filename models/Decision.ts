@@ -26,7 +26,11 @@ export class Decision extends Model<InferAttributes<Decision>, InferCreationAttr
         id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
         findingId: { type: DataTypes.INTEGER, allowNull: false, unique: true },
         reviewerId: { type: DataTypes.INTEGER, allowNull: false },
-        outcome: { type: DataTypes.STRING(20), allowNull: false, validate: oneOf('outcome', DECISION_OUTCOMES) },
+        outcome: {
+          type: DataTypes.STRING(20),
+          allowNull: false,
+          validate: oneOf('outcome', DECISION_OUTCOMES),
+        },
         justification: { type: DataTypes.TEXT, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

@@ -8,7 +8,14 @@ import {
   type Sequelize,
 } from 'sequelize';
 import type { Verdict } from '@/lib/stress/types';
-import { EXPOSURE_MECHANISMS, FINDING_KINDS, STRESS_CASE_KINDS, VERDICTS, type ExposureMechanism, type FindingKind } from './enums';
+import {
+  EXPOSURE_MECHANISMS,
+  FINDING_KINDS,
+  STRESS_CASE_KINDS,
+  VERDICTS,
+  type ExposureMechanism,
+  type FindingKind,
+} from './enums';
 import { oneOf } from './validators';
 import type { Decision } from './Decision';
 
@@ -39,11 +46,27 @@ export class Finding extends Model<InferAttributes<Finding>, InferCreationAttrib
         id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
         auditRunId: { type: DataTypes.INTEGER, allowNull: false },
         channelId: { type: DataTypes.INTEGER, allowNull: true },
-        kind: { type: DataTypes.STRING(20), allowNull: false, validate: oneOf('kind', FINDING_KINDS) },
-        stressCase: { type: DataTypes.STRING(20), allowNull: true, validate: oneOf('stressCase', STRESS_CASE_KINDS) },
-        mechanism: { type: DataTypes.STRING(20), allowNull: true, validate: oneOf('mechanism', EXPOSURE_MECHANISMS) },
+        kind: {
+          type: DataTypes.STRING(20),
+          allowNull: false,
+          validate: oneOf('kind', FINDING_KINDS),
+        },
+        stressCase: {
+          type: DataTypes.STRING(20),
+          allowNull: true,
+          validate: oneOf('stressCase', STRESS_CASE_KINDS),
+        },
+        mechanism: {
+          type: DataTypes.STRING(20),
+          allowNull: true,
+          validate: oneOf('mechanism', EXPOSURE_MECHANISMS),
+        },
         hazardTerminalId: { type: DataTypes.INTEGER, allowNull: true },
-        verdict: { type: DataTypes.STRING(20), allowNull: false, validate: oneOf('verdict', VERDICTS) },
+        verdict: {
+          type: DataTypes.STRING(20),
+          allowNull: false,
+          validate: oneOf('verdict', VERDICTS),
+        },
         reason: { type: DataTypes.TEXT, allowNull: false },
         margin: { type: DataTypes.DOUBLE, allowNull: true },
         figures: { type: DataTypes.JSON, allowNull: true },

@@ -11,7 +11,10 @@ import type { Guard } from '@/lib/stress/types';
 import { guardShapeProblems } from '@/lib/presets/guard-shape';
 
 /** A named protection network in a project's library; channels refer to one. */
-export class GuardRecipe extends Model<InferAttributes<GuardRecipe>, InferCreationAttributes<GuardRecipe>> {
+export class GuardRecipe extends Model<
+  InferAttributes<GuardRecipe>,
+  InferCreationAttributes<GuardRecipe>
+> {
   declare id: CreationOptional<number>;
   declare projectId: number;
   declare name: string;

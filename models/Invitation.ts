@@ -9,7 +9,10 @@ import {
 import { PROJECT_ROLES, type ProjectRole } from './enums';
 import { oneOf } from './validators';
 
-export class Invitation extends Model<InferAttributes<Invitation>, InferCreationAttributes<Invitation>> {
+export class Invitation extends Model<
+  InferAttributes<Invitation>,
+  InferCreationAttributes<Invitation>
+> {
   declare id: CreationOptional<number>;
   declare email: string;
   declare projectId: number;
@@ -30,12 +33,19 @@ export class Invitation extends Model<InferAttributes<Invitation>, InferCreation
           type: DataTypes.STRING(254),
           allowNull: false,
           set(value: string) {
-            this.setDataValue('email', typeof value === 'string' ? value.trim().toLowerCase() : value);
+            this.setDataValue(
+              'email',
+              typeof value === 'string' ? value.trim().toLowerCase() : value,
+            );
           },
           validate: { isEmail: { msg: 'email must be a valid e-mail address.' } },
         },
         projectId: { type: DataTypes.INTEGER, allowNull: false },
-        role: { type: DataTypes.STRING(20), allowNull: false, validate: oneOf('role', PROJECT_ROLES) },
+        role: {
+          type: DataTypes.STRING(20),
+          allowNull: false,
+          validate: oneOf('role', PROJECT_ROLES),
+        },
         token: {
           type: DataTypes.STRING(128),
           allowNull: false,

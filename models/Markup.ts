@@ -40,7 +40,11 @@ export class Markup extends Model<InferAttributes<Markup>, InferCreationAttribut
         projectId: { type: DataTypes.INTEGER, allowNull: false },
         terminalId: { type: DataTypes.INTEGER, allowNull: true },
         authorId: { type: DataTypes.INTEGER, allowNull: false },
-        kind: { type: DataTypes.STRING(20), allowNull: false, validate: oneOf('kind', MARKUP_KINDS) },
+        kind: {
+          type: DataTypes.STRING(20),
+          allowNull: false,
+          validate: oneOf('kind', MARKUP_KINDS),
+        },
         before: { type: DataTypes.JSON, allowNull: true },
         after: { type: DataTypes.JSON, allowNull: true },
         note: { type: DataTypes.TEXT, allowNull: true },

@@ -8,7 +8,10 @@ import {
 } from 'sequelize';
 
 /** An e-mail the app sent (or tried to), shown on the local outbox page. */
-export class OutboxMessage extends Model<InferAttributes<OutboxMessage>, InferCreationAttributes<OutboxMessage>> {
+export class OutboxMessage extends Model<
+  InferAttributes<OutboxMessage>,
+  InferCreationAttributes<OutboxMessage>
+> {
   declare id: CreationOptional<number>;
   declare to: string;
   declare subject: string;

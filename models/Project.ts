@@ -115,7 +115,10 @@ export class Project extends Model<InferAttributes<Project>, InferCreationAttrib
           allowNull: false,
           unique: true,
           validate: {
-            is: { args: /^[A-Za-z0-9][A-Za-z0-9._-]*$/, msg: 'code may hold letters, digits, ".", "_" and "-".' },
+            is: {
+              args: /^[A-Za-z0-9][A-Za-z0-9._-]*$/,
+              msg: 'code may hold letters, digits, ".", "_" and "-".',
+            },
           },
         },
         client: { type: DataTypes.STRING(200), allowNull: true },
@@ -149,7 +152,10 @@ export class Project extends Model<InferAttributes<Project>, InferCreationAttrib
           type: DataTypes.DOUBLE,
           allowNull: false,
           defaultValue: d.ambientC,
-          validate: { min: { args: [-40], msg: 'ambientC must be at least −40 °C.' }, max: { args: [125], msg: 'ambientC must be at most 125 °C.' } },
+          validate: {
+            min: { args: [-40], msg: 'ambientC must be at least −40 °C.' },
+            max: { args: [125], msg: 'ambientC must be at most 125 °C.' },
+          },
         },
         overvoltageCategory: {
           type: DataTypes.STRING(3),
@@ -205,7 +211,8 @@ export class Project extends Model<InferAttributes<Project>, InferCreationAttrib
           validate: {
             isWeights(value: unknown) {
               if (value === null || value === undefined) return;
-              if (!isPlainObject(value)) throw new Error('likelihoodWeights must be an object of numbers.');
+              if (!isPlainObject(value))
+                throw new Error('likelihoodWeights must be an object of numbers.');
               for (const [key, weight] of Object.entries(value)) {
                 if (typeof weight !== 'number' || !Number.isFinite(weight) || weight < 0) {
                   throw new Error(`likelihoodWeights.${key} must be a number ≥ 0.`);

@@ -13,7 +13,10 @@ import type { Project } from './Project';
 import type { User } from './User';
 
 /** A user's role on one project (roles are per project; admin is global, on User). */
-export class ProjectMember extends Model<InferAttributes<ProjectMember>, InferCreationAttributes<ProjectMember>> {
+export class ProjectMember extends Model<
+  InferAttributes<ProjectMember>,
+  InferCreationAttributes<ProjectMember>
+> {
   declare id: CreationOptional<number>;
   declare userId: number;
   declare projectId: number;
@@ -30,7 +33,11 @@ export class ProjectMember extends Model<InferAttributes<ProjectMember>, InferCr
         id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
         userId: { type: DataTypes.INTEGER, allowNull: false },
         projectId: { type: DataTypes.INTEGER, allowNull: false },
-        role: { type: DataTypes.STRING(20), allowNull: false, validate: oneOf('role', PROJECT_ROLES) },
+        role: {
+          type: DataTypes.STRING(20),
+          allowNull: false,
+          validate: oneOf('role', PROJECT_ROLES),
+        },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

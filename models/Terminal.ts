@@ -113,10 +113,22 @@ export class Terminal extends Model<InferAttributes<Terminal>, InferCreationAttr
           allowNull: true,
           validate: oneOf('hazardKind', HAZARD_KINDS),
         },
-        nominalVoltage: { type: DataTypes.DOUBLE, allowNull: true, validate: nonNegative('nominalVoltage') },
-        currentKind: { type: DataTypes.STRING(2), allowNull: true, validate: oneOf('currentKind', CURRENT_KINDS) },
+        nominalVoltage: {
+          type: DataTypes.DOUBLE,
+          allowNull: true,
+          validate: nonNegative('nominalVoltage'),
+        },
+        currentKind: {
+          type: DataTypes.STRING(2),
+          allowNull: true,
+          validate: oneOf('currentKind', CURRENT_KINDS),
+        },
         frequency: { type: DataTypes.DOUBLE, allowNull: true, validate: nonNegative('frequency') },
-        sourceImpedance: { type: DataTypes.DOUBLE, allowNull: true, validate: nonNegative('sourceImpedance') },
+        sourceImpedance: {
+          type: DataTypes.DOUBLE,
+          allowNull: true,
+          validate: nonNegative('sourceImpedance'),
+        },
         bridgeGroup: { type: DataTypes.STRING(40), allowNull: true },
         channelId: { type: DataTypes.INTEGER, allowNull: true },
         notes: { type: DataTypes.TEXT, allowNull: true },
@@ -137,9 +149,12 @@ export class Terminal extends Model<InferAttributes<Terminal>, InferCreationAttr
               if (this.nominalVoltage === null || this.nominalVoltage === undefined) {
                 throw new Error('nominalVoltage is required on a hazard terminal.');
               }
-              if (!this.currentKind) throw new Error('currentKind is required on a hazard terminal.');
+              if (!this.currentKind)
+                throw new Error('currentKind is required on a hazard terminal.');
             } else if (this.hazardKind) {
-              throw new Error(`hazardKind is only for hazard terminals (this one is ${this.circuitClass}).`);
+              throw new Error(
+                `hazardKind is only for hazard terminals (this one is ${this.circuitClass}).`,
+              );
             }
             if (this.currentKind === 'ac' && this.circuitClass === 'hazard' && !this.frequency) {
               throw new Error('frequency is required on an AC hazard terminal.');

@@ -35,7 +35,10 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
           unique: true,
           // Stored lower-case so uniqueness does not depend on the database's collation.
           set(value: string) {
-            this.setDataValue('email', typeof value === 'string' ? value.trim().toLowerCase() : value);
+            this.setDataValue(
+              'email',
+              typeof value === 'string' ? value.trim().toLowerCase() : value,
+            );
           },
           validate: { isEmail: { msg: 'email must be a valid e-mail address.' } },
         },

@@ -6,7 +6,14 @@
 export const PROJECT_ROLES = ['engineer', 'technician', 'reviewer', 'viewer'] as const;
 export type ProjectRole = (typeof PROJECT_ROLES)[number];
 
-export const CIRCUIT_CLASSES = ['hazard', 'sensitive', 'return', 'earth', 'spare', 'barrier'] as const;
+export const CIRCUIT_CLASSES = [
+  'hazard',
+  'sensitive',
+  'return',
+  'earth',
+  'spare',
+  'barrier',
+] as const;
 export type CircuitClass = (typeof CIRCUIT_CLASSES)[number];
 
 export const HAZARD_KINDS = [
@@ -60,7 +67,13 @@ export const VERDICTS = ['holds', 'marginal', 'fails', 'unprotected', 'incomplet
 
 export const STRESS_CASE_KINDS = ['dc', 'ac', 'surge', 'esd'] as const;
 
-export const EXPOSURE_MECHANISMS = ['neighbour', 'stacked', 'same-cable', 'look-alike', 'bridge'] as const;
+export const EXPOSURE_MECHANISMS = [
+  'neighbour',
+  'stacked',
+  'same-cable',
+  'look-alike',
+  'bridge',
+] as const;
 export type ExposureMechanism = (typeof EXPOSURE_MECHANISMS)[number];
 
 export const DECISION_OUTCOMES = ['accept', 'require-fix'] as const;

@@ -59,7 +59,10 @@ export const models = {
 export type Models = typeof models;
 
 /** Plain attribute types of every model, derived from the classes (never retyped). */
-export type { InferAttributes as Attributes, InferCreationAttributes as CreationAttributes } from 'sequelize';
+export type {
+  InferAttributes as Attributes,
+  InferCreationAttributes as CreationAttributes,
+} from 'sequelize';
 
 function associate(): void {
   User.hasMany(ProjectMember, { foreignKey: 'userId', as: 'memberships' });

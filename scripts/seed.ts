@@ -4,7 +4,7 @@
  * (exit 0); with other data present it refuses (exit 1). --reset drops every table, migrates
  * afresh and seeds: all data in the database is lost.
  */
-import { createSequelize, useDatabase } from '@/lib/db';
+import { createSequelize, bindDatabase } from '@/lib/db';
 import { revertMigrations, runMigrations } from '@/lib/db-migrate';
 import { DEMO_PASSWORD, DEMO_USERS, EVAPORATOR_PROJECT_CODE } from '@/seeders/demo-scenario';
 import { seedDemo } from '@/seeders/demo';
@@ -16,7 +16,7 @@ async function main(args: string[]): Promise<number> {
     return 2;
   }
   const reset = args.includes('--reset');
-  const db = useDatabase(createSequelize());
+  const db = bindDatabase(createSequelize());
   try {
     if (reset) {
       await revertMigrations(db.sequelize, { all: true });
@@ -29,7 +29,9 @@ async function main(args: string[]): Promise<number> {
       return 0;
     }
     if ((await User.count()) > 0 || (await Project.count()) > 0) {
-      console.error('the database already holds data that is not the demo: refusing to mix them (use --reset to wipe it)');
+      console.error(
+        'the database already holds data that is not the demo: refusing to mix them (use --reset to wipe it)',
+      );
       return 1;
     }
     const counts = await seedDemo(db);

@@ -44,11 +44,36 @@ export interface DemoUser {
 }
 
 export const DEMO_USERS: readonly DemoUser[] = [
-  { email: 'tamsin.admin@vessmoor.example', name: 'Tamsin Greaves', isAdmin: true, demoRole: 'admin' },
-  { email: 'orla.engineer@vessmoor.example', name: 'Orla Penhallow', isAdmin: false, demoRole: 'engineer' },
-  { email: 'bram.technician@vessmoor.example', name: 'Bram Kettering', isAdmin: false, demoRole: 'technician' },
-  { email: 'nadia.reviewer@vessmoor.example', name: 'Nadia Oyelaran', isAdmin: false, demoRole: 'reviewer' },
-  { email: 'felix.viewer@vessmoor.example', name: 'Felix Armitage', isAdmin: false, demoRole: 'viewer' },
+  {
+    email: 'tamsin.admin@vessmoor.example',
+    name: 'Tamsin Greaves',
+    isAdmin: true,
+    demoRole: 'admin',
+  },
+  {
+    email: 'orla.engineer@vessmoor.example',
+    name: 'Orla Penhallow',
+    isAdmin: false,
+    demoRole: 'engineer',
+  },
+  {
+    email: 'bram.technician@vessmoor.example',
+    name: 'Bram Kettering',
+    isAdmin: false,
+    demoRole: 'technician',
+  },
+  {
+    email: 'nadia.reviewer@vessmoor.example',
+    name: 'Nadia Oyelaran',
+    isAdmin: false,
+    demoRole: 'reviewer',
+  },
+  {
+    email: 'felix.viewer@vessmoor.example',
+    name: 'Felix Armitage',
+    isAdmin: false,
+    demoRole: 'viewer',
+  },
 ];
 
 export interface RecipePlan {
@@ -93,7 +118,12 @@ export const RECIPE = {
 } as const;
 
 function presetLibrary(): RecipePlan[] {
-  return presetRecipes().map((p) => ({ name: p.name, description: p.description, guard: p.guard, isPreset: true }));
+  return presetRecipes().map((p) => ({
+    name: p.name,
+    description: p.description,
+    guard: p.guard,
+    isPreset: true,
+  }));
 }
 
 /** Our own designs for the evaporator project (figures typical, from memory). */
@@ -106,7 +136,15 @@ const CUSTOM_RECIPES: RecipePlan[] = [
     guard: {
       stages: [
         {
-          series: { kind: 'ptc', id: 'F1', resistance: 10, holdCurrent: 0.15, tripCurrent: 0.3, maxVoltage: 600, maxCurrent: 3 },
+          series: {
+            kind: 'ptc',
+            id: 'F1',
+            resistance: 10,
+            holdCurrent: 0.15,
+            tripCurrent: 0.3,
+            maxVoltage: 600,
+            maxCurrent: 3,
+          },
           shunts: [
             {
               kind: 'tvs',
@@ -121,13 +159,43 @@ const CUSTOM_RECIPES: RecipePlan[] = [
           ],
         },
         {
-          series: { kind: 'resistor', id: 'R1', resistance: 200, ratedPower: 2, limitingVoltage: 500, overloadVoltage: 1000, pulseEnergy: 10 },
-          shunts: [{ kind: 'shuntResistor', id: 'RB', resistance: 250, ratedPower: 5, limitingVoltage: 500 }],
+          series: {
+            kind: 'resistor',
+            id: 'R1',
+            resistance: 200,
+            ratedPower: 2,
+            limitingVoltage: 500,
+            overloadVoltage: 1000,
+            pulseEnergy: 10,
+          },
+          shunts: [
+            {
+              kind: 'shuntResistor',
+              id: 'RB',
+              resistance: 250,
+              ratedPower: 5,
+              limitingVoltage: 500,
+            },
+          ],
         },
         {
-          series: { kind: 'resistor', id: 'R2', resistance: 10e3, ratedPower: 0.25, limitingVoltage: 200 },
+          series: {
+            kind: 'resistor',
+            id: 'R2',
+            resistance: 10e3,
+            ratedPower: 0.25,
+            limitingVoltage: 200,
+          },
           shunts: [
-            { kind: 'railDiodes', id: 'D2', forwardVoltage: 1.0, forwardCurrent: 0.05, averageCurrent: 0.2, surgeCurrent: 4, surgeDuration: 1e-6 },
+            {
+              kind: 'railDiodes',
+              id: 'D2',
+              forwardVoltage: 1.0,
+              forwardCurrent: 0.05,
+              averageCurrent: 0.2,
+              surgeCurrent: 4,
+              surgeDuration: 1e-6,
+            },
           ],
         },
       ],
@@ -143,43 +211,82 @@ const CUSTOM_RECIPES: RecipePlan[] = [
   },
   {
     name: RECIPE.bareAi,
-    description: 'Only the card: wiring straight to a 250 Ω 0.25 W burden and the converter’s own clamps.',
+    description:
+      'Only the card: wiring straight to a 250 Ω 0.25 W burden and the converter’s own clamps.',
     isPreset: false,
     guard: {
       stages: [
         {
           series: { kind: 'wire', id: 'W1', resistance: 0.2 },
-          shunts: [{ kind: 'shuntResistor', id: 'RB', resistance: 250, ratedPower: 0.25, limitingVoltage: 200 }],
+          shunts: [
+            {
+              kind: 'shuntResistor',
+              id: 'RB',
+              resistance: 250,
+              ratedPower: 0.25,
+              limitingVoltage: 200,
+            },
+          ],
         },
       ],
-      input: { positiveRail: 10, negativeRail: 0, absMaxBeyondRail: 0.3, absMaxCurrent: 0.01, internalClamps: true },
+      input: {
+        positiveRail: 10,
+        negativeRail: 0,
+        absMaxBeyondRail: 0.3,
+        absMaxCurrent: 0.01,
+        internalClamps: true,
+      },
     },
   },
   {
     name: RECIPE.chipDi,
-    description: '4k7 0805 chip resistor (0.125 W, 150 V limiting element voltage) into the optocoupler branch; no clamp.',
+    description:
+      '4k7 0805 chip resistor (0.125 W, 150 V limiting element voltage) into the optocoupler branch; no clamp.',
     isPreset: false,
     guard: {
       stages: [
         {
-          series: { kind: 'resistor', id: 'R1', resistance: 4700, ratedPower: 0.125, limitingVoltage: 150, overloadVoltage: 300 },
+          series: {
+            kind: 'resistor',
+            id: 'R1',
+            resistance: 4700,
+            ratedPower: 0.125,
+            limitingVoltage: 150,
+            overloadVoltage: 300,
+          },
           shunts: [],
         },
       ],
-      input: { positiveRail: 30, negativeRail: 0, absMaxBeyondRail: 5, absMaxCurrent: 0.05, inputResistance: 2200, internalClamps: false },
+      input: {
+        positiveRail: 30,
+        negativeRail: 0,
+        absMaxBeyondRail: 5,
+        absMaxCurrent: 0.05,
+        inputResistance: 2200,
+        internalClamps: false,
+      },
     },
   },
   {
     // Entered from the drawing before the datasheet arrived: values without ratings, so the
     // audit has to say "incomplete" rather than pass it.
     name: RECIPE.unrated,
-    description: '1 kΩ series resistor and a 27 V zener to 0 V inside the flow computer; ratings not yet known.',
+    description:
+      '1 kΩ series resistor and a 27 V zener to 0 V inside the flow computer; ratings not yet known.',
     isPreset: false,
     guard: {
       stages: [
         {
           series: { kind: 'resistor', id: 'R1', resistance: 1000 },
-          shunts: [{ kind: 'zener', id: 'D1', bidirectional: false, zenerVoltage: 27, dynamicImpedance: 35 }],
+          shunts: [
+            {
+              kind: 'zener',
+              id: 'D1',
+              bidirectional: false,
+              zenerVoltage: 27,
+              dynamicImpedance: 35,
+            },
+          ],
         },
       ],
       input: { positiveRail: 30, negativeRail: 0, absMaxBeyondRail: 0.5, inputResistance: 10e3 },
@@ -187,14 +294,29 @@ const CUSTOM_RECIPES: RecipePlan[] = [
   },
   {
     name: RECIPE.rtd,
-    description: '470 Ω 0.25 W series resistor, 10 nF and steering diodes to ±5 V at the converter.',
+    description:
+      '470 Ω 0.25 W series resistor, 10 nF and steering diodes to ±5 V at the converter.',
     isPreset: false,
     guard: {
       stages: [
         {
-          series: { kind: 'resistor', id: 'R1', resistance: 470, ratedPower: 0.25, limitingVoltage: 200 },
+          series: {
+            kind: 'resistor',
+            id: 'R1',
+            resistance: 470,
+            ratedPower: 0.25,
+            limitingVoltage: 200,
+          },
           shunts: [
-            { kind: 'railDiodes', id: 'D1', forwardVoltage: 1.0, forwardCurrent: 0.05, averageCurrent: 0.2, surgeCurrent: 4, surgeDuration: 1e-6 },
+            {
+              kind: 'railDiodes',
+              id: 'D1',
+              forwardVoltage: 1.0,
+              forwardCurrent: 0.05,
+              averageCurrent: 0.2,
+              surgeCurrent: 4,
+              surgeDuration: 1e-6,
+            },
             { kind: 'capacitor', id: 'C1', capacitance: 10e-9, voltageRating: 50 },
           ],
         },
@@ -221,7 +343,12 @@ const PLANTED_WIRES = new Set(['1014', '1041', '1169', '6911']);
 
 type AiSpec = [tag: string, name: string, recipe: string | null];
 
-function aiPairs(specs: AiSpec[], firstNumber: number, channels: ChannelPlan[], extra: (i: number) => { sig?: Partial<TerminalEntry>; ret?: Partial<TerminalEntry> } = () => ({})): StripEntry[] {
+function aiPairs(
+  specs: AiSpec[],
+  firstNumber: number,
+  channels: ChannelPlan[],
+  extra: (i: number) => { sig?: Partial<TerminalEntry>; ret?: Partial<TerminalEntry> } = () => ({}),
+): StripEntry[] {
   const entries: StripEntry[] = [];
   specs.forEach(([tag, name, recipe], i) => {
     const n = firstNumber + 2 * i;
@@ -242,7 +369,9 @@ function evaporatorPanel(): CabinetPlan {
   di('ZS-2101', 'Cabinet door closed', RECIPE.diPreset);
   di('TSH-2101', 'Cabinet thermostat high', RECIPE.chipDi);
   di('XA-2101', 'Surge arrester status', RECIPE.diPreset);
-  di('XA-2102', 'Cabinet fan fault', null, { notes: 'Input card from the old panel; no protection fitted.' });
+  di('XA-2102', 'Cabinet fan fault', null, {
+    notes: 'Input card from the old panel; no protection fitted.',
+  });
   const x1 = strip(
     'X1',
     '230 V AC distribution and cabinet monitoring',
@@ -267,8 +396,18 @@ function evaporatorPanel(): CabinetPlan {
 
   // X2: 24 V DC distribution with jumper combs; two pulse counters wedged between +24 V and 0 V.
   channels.push(
-    { tag: 'FQ-2111', name: 'Feed brine totaliser pulses', signalType: 'counter', recipe: RECIPE.unrated },
-    { tag: 'FQ-2112', name: 'Condensate totaliser pulses', signalType: 'counter', recipe: RECIPE.diFused },
+    {
+      tag: 'FQ-2111',
+      name: 'Feed brine totaliser pulses',
+      signalType: 'counter',
+      recipe: RECIPE.unrated,
+    },
+    {
+      tag: 'FQ-2112',
+      name: 'Condensate totaliser pulses',
+      signalType: 'counter',
+      recipe: RECIPE.diFused,
+    },
   );
   const x2Returns = ['ZS-2101', 'TSH-2101', 'XA-2101', 'XA-2102', 'FQ-2111', 'FQ-2112'];
   const x2 = strip(
@@ -312,7 +451,10 @@ function evaporatorPanel(): CabinetPlan {
     'X3',
     'Analog inputs AI-01 … AI-12 (4–20 mA)',
     [
-      mainsLine('1', MAINS_230, { notes: 'Enclosure anti-condensation heater feed.', wireNumber: '1014' }),
+      mainsLine('1', MAINS_230, {
+        notes: 'Enclosure anti-condensation heater feed.',
+        wireNumber: '1014',
+      }),
       mainsNeutral('2', MAINS_230),
       earth('3'),
       ...aiPairs(x3Specs, 4, channels, (i) => {
@@ -326,9 +468,13 @@ function evaporatorPanel(): CabinetPlan {
     wires,
   );
   // FT-2108 as built: a 1 W part fitted for R1 where the recipe asks for 2 W.
-  channels.find((c) => c.tag === 'FT-2108')!.guardOverrides = { elements: { R1: { ratedPower: 1 } } };
+  channels.find((c) => c.tag === 'FT-2108')!.guardOverrides = {
+    elements: { R1: { ratedPower: 1 } },
+  };
   // PDT-2112 as built: 47 Ω fitted in place of the 100 Ω of the recipe.
-  channels.find((c) => c.tag === 'PDT-2112')!.guardOverrides = { elements: { R1: { resistance: 47 } } };
+  channels.find((c) => c.tag === 'PDT-2112')!.guardOverrides = {
+    elements: { R1: { resistance: 47 } },
+  };
 
   // X4: digital inputs, a barrier, then 230 V valve outputs. X4:14 is a 230 V valve feed; X3:14 is an AI.
   const x4Di: Array<[string, string, string | null]> = [
@@ -359,7 +505,11 @@ function evaporatorPanel(): CabinetPlan {
       zeroVolt('11', { commonReturnOf: x4Di.map(([tag]) => tag) }),
       'barrier',
       mainsLine('13', MAINS_230, { notes: 'Valve XV-2113 solenoid' }),
-      mainsLine('14', MAINS_230, { notes: 'Valve XV-2114 solenoid', wireNumber: '6911', wireColour: 'BU' }),
+      mainsLine('14', MAINS_230, {
+        notes: 'Valve XV-2114 solenoid',
+        wireNumber: '6911',
+        wireColour: 'BU',
+      }),
       mainsLine('15', MAINS_230, { notes: 'Valve XV-2115 solenoid' }),
       mainsNeutral('16', MAINS_230, { bridgeGroup: 'X4-N' }),
       mainsNeutral('17', MAINS_230, { bridgeGroup: 'X4-N' }),
@@ -379,7 +529,9 @@ function evaporatorPanel(): CabinetPlan {
     ['TT-2147', 'Steam condensate temperature', null],
     ['PT-2148', 'Instrument air pressure', RECIPE.aiVaristor],
   ];
-  x5Loops.forEach(([tag, name, recipe]) => channels.push({ tag, name, signalType: 'current-4-20', recipe }));
+  x5Loops.forEach(([tag, name, recipe]) =>
+    channels.push({ tag, name, signalType: 'current-4-20', recipe }),
+  );
   const rtds: Array<[string, string, string | null]> = [
     ['TE-2151', 'Evaporator 1 shell temperature', RECIPE.rtd],
     ['TE-2152', 'Evaporator 2 shell temperature', RECIPE.rtd],
@@ -397,7 +549,10 @@ function evaporatorPanel(): CabinetPlan {
       ]),
       zeroVolt('9', { commonReturnOf: x5Loops.map(([tag]) => tag) }),
       'barrier',
-      ...rtds.flatMap(([tag], i) => [signal(String(11 + 2 * i), tag), channelReturn(String(12 + 2 * i), tag)]),
+      ...rtds.flatMap(([tag], i) => [
+        signal(String(11 + 2 * i), tag),
+        channelReturn(String(12 + 2 * i), tag),
+      ]),
       earth('19', { notes: 'Shield bar' }),
     ],
     wires,
@@ -427,7 +582,9 @@ function pumpHousePanel(): CabinetPlan {
     ['YA-2202', 'Pump P-2202 tripped', RECIPE.diFused],
     ['HS-2202', 'Pump P-2202 in remote', RECIPE.diPreset],
   ];
-  feedback.forEach(([tag, name, recipe]) => channels.push({ tag, name, signalType: 'digital-24', recipe }));
+  feedback.forEach(([tag, name, recipe]) =>
+    channels.push({ tag, name, signalType: 'digital-24', recipe }),
+  );
   const mixed = (core: string) => ({ cableId: 'W-2210', cableCore: core });
   const x11 = strip(
     'X11',
@@ -452,7 +609,10 @@ function pumpHousePanel(): CabinetPlan {
         wireColour: 'RD',
         notes: 'Control transformer T22 secondary, 230 V',
       },
-      mainsNeutral('10', control, { notes: 'Control transformer T22 common', sourceImpedance: 1.5 }),
+      mainsNeutral('10', control, {
+        notes: 'Control transformer T22 common',
+        sourceImpedance: 1.5,
+      }),
       ...feedback.map(([tag], i) => signal(String(11 + i), tag)),
       zeroVolt('17', { commonReturnOf: feedback.map(([tag]) => tag) }),
       mainsLine('18', MAINS_230, { ...mixed('1'), notes: 'Solenoid XV-2210 at JB-22' }),
@@ -471,7 +631,8 @@ function pumpHousePanel(): CabinetPlan {
     ['DT-2215', 'Raw brine density', RECIPE.aiVaristor],
     ['AT-2216', 'Raw brine turbidity', null],
   ];
-  const cableFor = (i: number): [string, number] => (i < 2 ? ['W-2210', 3 + 2 * i] : ['W-2211', 1 + 2 * (i - 2)]);
+  const cableFor = (i: number): [string, number] =>
+    i < 2 ? ['W-2210', 3 + 2 * i] : ['W-2211', 1 + 2 * (i - 2)];
   const x12 = strip(
     'X12',
     'Analog inputs from junction box JB-22',
@@ -482,7 +643,10 @@ function pumpHousePanel(): CabinetPlan {
       earth('4', { notes: 'Shield bar' }),
       ...aiPairs(x12Specs, 5, channels, (i) => {
         const [cableId, core] = cableFor(i);
-        return { sig: { cableId, cableCore: String(core) }, ret: { cableId, cableCore: String(core + 1) } };
+        return {
+          sig: { cableId, cableCore: String(core) },
+          ret: { cableId, cableCore: String(core + 1) },
+        };
       }),
       { ...spare('17'), cableId: 'W-2210', cableCore: '7' },
       earth('18'),
@@ -498,7 +662,9 @@ function pumpHousePanel(): CabinetPlan {
     ['TE-2233', 'Brine line trace temperature, section 3', RECIPE.tcPreset],
     ['TE-2234', 'Brine line trace temperature, section 4', null],
   ];
-  tcs.forEach(([tag, name, recipe]) => channels.push({ tag, name, signalType: 'thermocouple', recipe }));
+  tcs.forEach(([tag, name, recipe]) =>
+    channels.push({ tag, name, signalType: 'thermocouple', recipe }),
+  );
   const x13 = strip(
     'X13',
     'Trace heater outputs and thermocouples',
@@ -601,11 +767,31 @@ function creameryProject(): ProjectPlan {
   const mains120: Supply = { voltage: 120, frequency: 60 };
   const wires = new WireNumbers(100);
   const channels: ChannelPlan[] = [
-    { tag: 'LSH-101', name: 'Whey tank high level', signalType: 'digital-24', recipe: RECIPE.diPreset },
-    { tag: 'PSL-102', name: 'Pump suction pressure low', signalType: 'digital-24', recipe: RECIPE.diPreset },
+    {
+      tag: 'LSH-101',
+      name: 'Whey tank high level',
+      signalType: 'digital-24',
+      recipe: RECIPE.diPreset,
+    },
+    {
+      tag: 'PSL-102',
+      name: 'Pump suction pressure low',
+      signalType: 'digital-24',
+      recipe: RECIPE.diPreset,
+    },
     { tag: 'ZS-103', name: 'Cleaning valve closed', signalType: 'digital-24', recipe: null },
-    { tag: 'TT-104', name: 'Whey temperature', signalType: 'current-4-20', recipe: RECIPE.aiPreset },
-    { tag: 'FT-105', name: 'Whey transfer flow', signalType: 'current-4-20', recipe: RECIPE.aiVaristor },
+    {
+      tag: 'TT-104',
+      name: 'Whey temperature',
+      signalType: 'current-4-20',
+      recipe: RECIPE.aiPreset,
+    },
+    {
+      tag: 'FT-105',
+      name: 'Whey transfer flow',
+      signalType: 'current-4-20',
+      recipe: RECIPE.aiVaristor,
+    },
   ];
   const nfpaReturn = { wireColour: 'WH/BU' };
   const tb1 = strip(
@@ -665,7 +851,15 @@ function creameryProject(): ProjectPlan {
       { email: 'bram.technician@vessmoor.example', role: 'technician' },
     ],
     recipes: presetLibrary(),
-    cabinets: [{ tag: '+SK1', name: 'Whey skid control box', location: 'Whey room, skid frame', strips: [tb1, tb2], channels }],
+    cabinets: [
+      {
+        tag: '+SK1',
+        name: 'Whey skid control box',
+        location: 'Whey room, skid frame',
+        strips: [tb1, tb2],
+        channels,
+      },
+    ],
     markups: [],
   };
 }

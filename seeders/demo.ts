@@ -41,7 +41,10 @@ export async function seedDemo(db: Db): Promise<SeedCounts> {
   await sequelize.transaction(async (transaction) => {
     const userIds = new Map<string, number>();
     for (const u of DEMO_USERS) {
-      const user = await m.User.create({ email: u.email, name: u.name, isAdmin: u.isAdmin, passwordHash }, { transaction });
+      const user = await m.User.create(
+        { email: u.email, name: u.name, isAdmin: u.isAdmin, passwordHash },
+        { transaction },
+      );
       userIds.set(u.email, user.id);
       counts.users += 1;
     }
@@ -59,7 +62,10 @@ export async function seedDemo(db: Db): Promise<SeedCounts> {
       const project = await m.Project.create(plan.project, { transaction });
       counts.projects += 1;
       for (const member of plan.members) {
-        await m.ProjectMember.create({ projectId: project.id, userId: userId(member.email), role: member.role }, { transaction });
+        await m.ProjectMember.create(
+          { projectId: project.id, userId: userId(member.email), role: member.role },
+          { transaction },
+        );
         counts.memberships += 1;
       }
       const recipeIds = new Map<string, number>();
@@ -72,7 +78,12 @@ export async function seedDemo(db: Db): Promise<SeedCounts> {
       const terminalIdsByLabel = new Map<string, number>();
       for (const cabinetPlan of plan.cabinets) {
         const cabinet = await m.Cabinet.create(
-          { projectId: project.id, tag: cabinetPlan.tag, name: cabinetPlan.name, location: cabinetPlan.location },
+          {
+            projectId: project.id,
+            tag: cabinetPlan.tag,
+            name: cabinetPlan.name,
+            location: cabinetPlan.location,
+          },
           { transaction },
         );
         counts.cabinets += 1;
@@ -93,11 +104,13 @@ export async function seedDemo(db: Db): Promise<SeedCounts> {
             const attributes: CreationAttributes<Terminal> = { ...fields, stripId: strip.id };
             const terminal = await m.Terminal.create(attributes, { transaction });
             counts.terminals += 1;
-            if (terminalIdsByLabel.has(terminal.label)) throw new Error(`Duplicate terminal label ${terminal.label}.`);
+            if (terminalIdsByLabel.has(terminal.label))
+              throw new Error(`Duplicate terminal label ${terminal.label}.`);
             terminalIdsByLabel.set(terminal.label, terminal.id);
             if (channel) {
               const into = channel.as === 'signal' ? signalOf : returnOf;
-              if (into.has(channel.tag)) throw new Error(`Channel ${channel.tag} has two ${channel.as} terminals.`);
+              if (into.has(channel.tag))
+                throw new Error(`Channel ${channel.tag} has two ${channel.as} terminals.`);
               into.set(channel.tag, terminal.id);
               channelTerminals.push({ terminalId: terminal.id, tag: channel.tag });
             }
@@ -111,11 +124,13 @@ export async function seedDemo(db: Db): Promise<SeedCounts> {
         const channelIds = new Map<string, number>();
         for (const c of cabinetPlan.channels) {
           const signalTerminalId = signalOf.get(c.tag);
-          if (signalTerminalId === undefined) throw new Error(`Channel ${c.tag} has no signal terminal in ${cabinetPlan.tag}.`);
+          if (signalTerminalId === undefined)
+            throw new Error(`Channel ${c.tag} has no signal terminal in ${cabinetPlan.tag}.`);
           let guardRecipeId: number | null = null;
           if (c.recipe !== null) {
             const id = recipeIds.get(c.recipe);
-            if (id === undefined) throw new Error(`Channel ${c.tag} names an unknown recipe "${c.recipe}".`);
+            if (id === undefined)
+              throw new Error(`Channel ${c.tag} names an unknown recipe "${c.recipe}".`);
             guardRecipeId = id;
           }
           const channel = await m.Channel.create(
@@ -138,14 +153,18 @@ export async function seedDemo(db: Db): Promise<SeedCounts> {
         }
         for (const { terminalId, tag } of channelTerminals) {
           const channelId = channelIds.get(tag);
-          if (channelId === undefined) throw new Error(`Terminal refers to channel ${tag}, which the cabinet does not define.`);
+          if (channelId === undefined)
+            throw new Error(
+              `Terminal refers to channel ${tag}, which the cabinet does not define.`,
+            );
           await m.Terminal.update({ channelId }, { where: { id: terminalId }, transaction });
         }
       }
 
       for (const mk of plan.markups) {
         const terminalId = terminalIdsByLabel.get(mk.terminalLabel);
-        if (terminalId === undefined) throw new Error(`Markup names an unknown terminal ${mk.terminalLabel}.`);
+        if (terminalId === undefined)
+          throw new Error(`Markup names an unknown terminal ${mk.terminalLabel}.`);
         await m.Markup.create(
           {
             projectId: project.id,
@@ -165,7 +184,14 @@ export async function seedDemo(db: Db): Promise<SeedCounts> {
       }
 
       await m.AuditLog.create(
-        { actorId: null, projectId: project.id, action: 'demo.seed', entity: 'Project', entityId: project.id, detail: { code: project.code } },
+        {
+          actorId: null,
+          projectId: project.id,
+          action: 'demo.seed',
+          entity: 'Project',
+          entityId: project.id,
+          detail: { code: project.code },
+        },
         { transaction },
       );
     }

@@ -8,7 +8,19 @@ import type { GuardOverrides } from '@/lib/presets/overrides';
 import type { SignalType } from '@/models/enums';
 import type { Terminal } from '@/models/Terminal';
 
-type TerminalFields = Omit<InferCreationAttributes<Terminal>, 'id' | 'stripId' | 'position' | 'level' | 'label' | 'blockId' | 'channelId' | 'version' | 'createdAt' | 'updatedAt'>;
+type TerminalFields = Omit<
+  InferCreationAttributes<Terminal>,
+  | 'id'
+  | 'stripId'
+  | 'position'
+  | 'level'
+  | 'label'
+  | 'blockId'
+  | 'channelId'
+  | 'version'
+  | 'createdAt'
+  | 'updatedAt'
+>;
 
 /** One terminal as written in the scenario; `channel` ties it to a channel by tag. */
 export interface TerminalEntry extends Partial<TerminalFields> {
@@ -54,7 +66,12 @@ export interface CabinetPlan {
 }
 
 /** Places the entries along the strip: one position each; stacked levels share one. */
-export function strip(tag: string, name: string, entries: StripEntry[], wires: WireNumbers): StripPlan {
+export function strip(
+  tag: string,
+  name: string,
+  entries: StripEntry[],
+  wires: WireNumbers,
+): StripPlan {
   const terminals: PlacedTerminal[] = [];
   let barriers = 0;
   entries.forEach((entry, index) => {
@@ -144,7 +161,11 @@ export interface Supply {
   frequency: number;
 }
 
-export const mainsLine = (n: string, supply: Supply, extra: Partial<TerminalEntry> = {}): TerminalEntry => ({
+export const mainsLine = (
+  n: string,
+  supply: Supply,
+  extra: Partial<TerminalEntry> = {},
+): TerminalEntry => ({
   terminalNumber: n,
   circuitClass: 'hazard',
   hazardKind: 'mains-line',
@@ -156,7 +177,11 @@ export const mainsLine = (n: string, supply: Supply, extra: Partial<TerminalEntr
 });
 
 /** Worst case of a neutral: lifted upstream with the load connected, it carries line voltage. */
-export const mainsNeutral = (n: string, supply: Supply, extra: Partial<TerminalEntry> = {}): TerminalEntry => ({
+export const mainsNeutral = (
+  n: string,
+  supply: Supply,
+  extra: Partial<TerminalEntry> = {},
+): TerminalEntry => ({
   terminalNumber: n,
   circuitClass: 'hazard',
   hazardKind: 'mains-neutral',
@@ -167,7 +192,11 @@ export const mainsNeutral = (n: string, supply: Supply, extra: Partial<TerminalE
   ...extra,
 });
 
-export const motorOutput = (n: string, supply: Supply, extra: Partial<TerminalEntry> = {}): TerminalEntry => ({
+export const motorOutput = (
+  n: string,
+  supply: Supply,
+  extra: Partial<TerminalEntry> = {},
+): TerminalEntry => ({
   terminalNumber: n,
   circuitClass: 'hazard',
   hazardKind: 'motor-output',
@@ -178,7 +207,11 @@ export const motorOutput = (n: string, supply: Supply, extra: Partial<TerminalEn
   ...extra,
 });
 
-export const heaterOutput = (n: string, supply: Supply, extra: Partial<TerminalEntry> = {}): TerminalEntry => ({
+export const heaterOutput = (
+  n: string,
+  supply: Supply,
+  extra: Partial<TerminalEntry> = {},
+): TerminalEntry => ({
   terminalNumber: n,
   circuitClass: 'hazard',
   hazardKind: 'heater-output',
@@ -214,9 +247,17 @@ export const earth = (n: string, extra: Partial<TerminalEntry> = {}): TerminalEn
   ...extra,
 });
 
-export const spare = (n: string): TerminalEntry => ({ terminalNumber: n, circuitClass: 'spare', wireColour: null });
+export const spare = (n: string): TerminalEntry => ({
+  terminalNumber: n,
+  circuitClass: 'spare',
+  wireColour: null,
+});
 
-export const signal = (n: string, tag: string, extra: Partial<TerminalEntry> = {}): TerminalEntry => ({
+export const signal = (
+  n: string,
+  tag: string,
+  extra: Partial<TerminalEntry> = {},
+): TerminalEntry => ({
   terminalNumber: n,
   circuitClass: 'sensitive',
   currentKind: 'dc',
@@ -225,7 +266,11 @@ export const signal = (n: string, tag: string, extra: Partial<TerminalEntry> = {
   ...extra,
 });
 
-export const channelReturn = (n: string, tag: string, extra: Partial<TerminalEntry> = {}): TerminalEntry => ({
+export const channelReturn = (
+  n: string,
+  tag: string,
+  extra: Partial<TerminalEntry> = {},
+): TerminalEntry => ({
   terminalNumber: n,
   circuitClass: 'return',
   currentKind: 'dc',

@@ -19,9 +19,26 @@ type SeriesSpecs = { [K in SeriesElement['kind']]: SpecOf<Extract<SeriesElement,
 type ShuntSpecs = { [K in ShuntElement['kind']]: SpecOf<Extract<ShuntElement, { kind: K }>> };
 
 const SERIES: SeriesSpecs = {
-  resistor: { resistance: 'number', ratedPower: 'number?', limitingVoltage: 'number?', overloadVoltage: 'number?', pulseEnergy: 'number?' },
-  ptc: { resistance: 'number', holdCurrent: 'number', tripCurrent: 'number', maxVoltage: 'number?', maxCurrent: 'number?' },
-  fuse: { ratedCurrent: 'number', voltageRating: 'number?', meltingI2t: 'number?', resistance: 'number?' },
+  resistor: {
+    resistance: 'number',
+    ratedPower: 'number?',
+    limitingVoltage: 'number?',
+    overloadVoltage: 'number?',
+    pulseEnergy: 'number?',
+  },
+  ptc: {
+    resistance: 'number',
+    holdCurrent: 'number',
+    tripCurrent: 'number',
+    maxVoltage: 'number?',
+    maxCurrent: 'number?',
+  },
+  fuse: {
+    ratedCurrent: 'number',
+    voltageRating: 'number?',
+    meltingI2t: 'number?',
+    resistance: 'number?',
+  },
   wire: { resistance: 'number' },
 };
 
@@ -66,7 +83,12 @@ const SHUNT: ShuntSpecs = {
     maxContinuousDcVoltage: 'number?',
   },
   capacitor: { capacitance: 'number', voltageRating: 'number?' },
-  shuntResistor: { resistance: 'number', ratedPower: 'number?', limitingVoltage: 'number?', overloadVoltage: 'number?' },
+  shuntResistor: {
+    resistance: 'number',
+    ratedPower: 'number?',
+    limitingVoltage: 'number?',
+    overloadVoltage: 'number?',
+  },
 };
 
 const INPUT: SpecOf<ProtectedInput> = {
@@ -95,7 +117,8 @@ function checkFields(
 ): void {
   // A misspelt rating would otherwise be ignored and the part judged without it.
   for (const key of Object.keys(value)) {
-    if (!Object.hasOwn(spec, key) && !ignore.includes(key)) problems.push(`${where}.${key} is not a field of this element.`);
+    if (!Object.hasOwn(spec, key) && !ignore.includes(key))
+      problems.push(`${where}.${key} is not a field of this element.`);
   }
   for (const [key, role] of Object.entries(spec)) {
     const v = value[key];
@@ -103,7 +126,11 @@ function checkFields(
     if (v === undefined && optional) continue;
     if (role.startsWith('number')) {
       if (typeof v !== 'number' || !Number.isFinite(v)) {
-        problems.push(optional ? `${where}.${key} must be a number in SI units when given.` : `${where}.${key} is required (a number in SI units).`);
+        problems.push(
+          optional
+            ? `${where}.${key} must be a number in SI units when given.`
+            : `${where}.${key} is required (a number in SI units).`,
+        );
       }
     } else if (typeof v !== 'boolean') {
       problems.push(`${where}.${key} must be true or false.`);

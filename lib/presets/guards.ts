@@ -87,7 +87,14 @@ export const DIGITAL_24V_SINKING: GuardPreset = {
       { series: { kind: 'wire', id: 'W1', resistance: 0.05 }, shunts: [tvs1500W33V('D1')] },
       {
         // 0207-size film resistor; single-pulse energy of the order of 0.1 J (from memory).
-        series: { kind: 'resistor', id: 'R1', resistance: 2200, ratedPower: 0.5, limitingVoltage: 350, pulseEnergy: 0.1 },
+        series: {
+          kind: 'resistor',
+          id: 'R1',
+          resistance: 2200,
+          ratedPower: 0.5,
+          limitingVoltage: 350,
+          pulseEnergy: 0.1,
+        },
         shunts: [{ kind: 'capacitor', id: 'C1', capacitance: 10e-9, voltageRating: 100 }],
       },
     ],
@@ -117,14 +124,34 @@ export const CURRENT_LOOP_4_20_BURDEN: GuardPreset = {
   guard: {
     stages: [
       {
-        series: { kind: 'ptc', id: 'F1', resistance: 10, holdCurrent: 0.05, tripCurrent: 0.1, maxVoltage: 60, maxCurrent: 10 },
+        series: {
+          kind: 'ptc',
+          id: 'F1',
+          resistance: 10,
+          holdCurrent: 0.05,
+          tripCurrent: 0.1,
+          maxVoltage: 60,
+          maxCurrent: 10,
+        },
         shunts: [tvs600W33V('D1', true)],
       },
       {
-        series: { kind: 'resistor', id: 'R1', resistance: 100, ratedPower: 0.25, limitingVoltage: 200 },
+        series: {
+          kind: 'resistor',
+          id: 'R1',
+          resistance: 100,
+          ratedPower: 0.25,
+          limitingVoltage: 200,
+        },
         shunts: [
           smallSignalRailDiodes('D2'),
-          { kind: 'shuntResistor', id: 'RB', resistance: 250, ratedPower: 0.6, limitingVoltage: 350 },
+          {
+            kind: 'shuntResistor',
+            id: 'RB',
+            resistance: 250,
+            ratedPower: 0.6,
+            limitingVoltage: 350,
+          },
         ],
       },
     ],
@@ -144,13 +171,23 @@ export const CURRENT_LOOP_4_20_BURDEN: GuardPreset = {
 export const VOLTAGE_0_10: GuardPreset = {
   key: 'ai-0-10v',
   name: '0–10 V analog voltage input',
-  description: '10 kΩ 0.25 W series resistor, 100 nF and steering diodes to +12 V / −12 V, 100 kΩ input.',
+  description:
+    '10 kΩ 0.25 W series resistor, 100 nF and steering diodes to +12 V / −12 V, 100 kΩ input.',
   caution: TYPICAL_CAUTION,
   guard: {
     stages: [
       {
-        series: { kind: 'resistor', id: 'R1', resistance: 10e3, ratedPower: 0.25, limitingVoltage: 200 },
-        shunts: [smallSignalRailDiodes('D1'), { kind: 'capacitor', id: 'C1', capacitance: 100e-9, voltageRating: 50 }],
+        series: {
+          kind: 'resistor',
+          id: 'R1',
+          resistance: 10e3,
+          ratedPower: 0.25,
+          limitingVoltage: 200,
+        },
+        shunts: [
+          smallSignalRailDiodes('D1'),
+          { kind: 'capacitor', id: 'C1', capacitance: 100e-9, voltageRating: 50 },
+        ],
       },
     ],
     input: {
@@ -176,8 +213,18 @@ export const THERMOCOUPLE_MV: GuardPreset = {
     stages: [
       {
         // Small chip resistor: its limiting element voltage (≈ 75 V for 0603, common practice) is the weak point.
-        series: { kind: 'resistor', id: 'R1', resistance: 1000, ratedPower: 0.1, limitingVoltage: 75, overloadVoltage: 150 },
-        shunts: [smallSignalRailDiodes('D1'), { kind: 'capacitor', id: 'C1', capacitance: 100e-9, voltageRating: 25 }],
+        series: {
+          kind: 'resistor',
+          id: 'R1',
+          resistance: 1000,
+          ratedPower: 0.1,
+          limitingVoltage: 75,
+          overloadVoltage: 150,
+        },
+        shunts: [
+          smallSignalRailDiodes('D1'),
+          { kind: 'capacitor', id: 'C1', capacitance: 100e-9, voltageRating: 25 },
+        ],
       },
     ],
     input: {
@@ -205,11 +252,19 @@ export const INPUT_PRESETS: readonly GuardPreset[] = [
 export const FUSED_TERMINAL: TerminalBlockPreset = {
   key: 'tb-fused-500mA',
   name: 'Fused terminal block, 500 mA fast',
-  description: '5 × 20 mm fast-acting fuse: 500 mA, 250 V, melting I²t ≈ 0.3 A²s, cold resistance ≈ 0.3 Ω.',
+  description:
+    '5 × 20 mm fast-acting fuse: 500 mA, 250 V, melting I²t ≈ 0.3 A²s, cold resistance ≈ 0.3 Ω.',
   caution: TYPICAL_CAUTION,
   stages: [
     {
-      series: { kind: 'fuse', id: 'TB-F1', ratedCurrent: 0.5, voltageRating: 250, meltingI2t: 0.3, resistance: 0.3 },
+      series: {
+        kind: 'fuse',
+        id: 'TB-F1',
+        ratedCurrent: 0.5,
+        voltageRating: 250,
+        meltingI2t: 0.3,
+        resistance: 0.3,
+      },
       shunts: [],
     },
   ],
@@ -222,7 +277,8 @@ export const FUSED_TERMINAL: TerminalBlockPreset = {
 export const VARISTOR_SURGE_TERMINAL: TerminalBlockPreset = {
   key: 'tb-varistor-24v',
   name: 'Varistor surge terminal block, 24 V',
-  description: 'MOV line–earth: 31 V DC continuous, 39 V at 1 mA, 77 V at 2.5 A, 250 A 8/20 µs, 1.2 J.',
+  description:
+    'MOV line–earth: 31 V DC continuous, 39 V at 1 mA, 77 V at 2.5 A, 250 A 8/20 µs, 1.2 J.',
   caution: TYPICAL_CAUTION,
   stages: [
     {
@@ -243,21 +299,37 @@ export const VARISTOR_SURGE_TERMINAL: TerminalBlockPreset = {
   ],
 };
 
-export const TERMINAL_BLOCK_PRESETS: readonly TerminalBlockPreset[] = [FUSED_TERMINAL, VARISTOR_SURGE_TERMINAL];
+export const TERMINAL_BLOCK_PRESETS: readonly TerminalBlockPreset[] = [
+  FUSED_TERMINAL,
+  VARISTOR_SURGE_TERMINAL,
+];
 
 /** The guard with a terminal block's stages in front of it (field side first). */
 export function withTerminalBlock(block: TerminalBlockPreset, guard: Guard): Guard {
   const ids = new Set(guard.stages.flatMap((s) => [s.series.id, ...s.shunts.map((e) => e.id)]));
-  const clash = block.stages.flatMap((s) => [s.series.id, ...s.shunts.map((e) => e.id)]).find((id) => ids.has(id));
-  if (clash) throw new Error(`Element id "${clash}" of ${block.name} is already used in the guard.`);
+  const clash = block.stages
+    .flatMap((s) => [s.series.id, ...s.shunts.map((e) => e.id)])
+    .find((id) => ids.has(id));
+  if (clash)
+    throw new Error(`Element id "${clash}" of ${block.name} is already used in the guard.`);
   return structuredClone({ stages: [...block.stages, ...guard.stages], input: guard.input });
 }
 
 /** Every preset as a full guard, for seeding a project's recipe library. */
-export function presetRecipes(): Array<{ key: string; name: string; description: string; guard: Guard }> {
+export function presetRecipes(): Array<{
+  key: string;
+  name: string;
+  description: string;
+  guard: Guard;
+}> {
   const described = (p: { description: string }) => `${p.description} (${TYPICAL_CAUTION})`;
   return [
-    ...INPUT_PRESETS.map((p) => ({ key: p.key, name: p.name, description: described(p), guard: structuredClone(p.guard) })),
+    ...INPUT_PRESETS.map((p) => ({
+      key: p.key,
+      name: p.name,
+      description: described(p),
+      guard: structuredClone(p.guard),
+    })),
     {
       key: `${FUSED_TERMINAL.key}+${DIGITAL_24V_SINKING.key}`,
       name: `${DIGITAL_24V_SINKING.name} behind a fused terminal`,

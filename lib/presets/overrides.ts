@@ -21,7 +21,8 @@ export function overridesShapeProblems(value: unknown): string[] {
   if (!isObject(value)) return ['guardOverrides must be an object with elements and/or input.'];
   const problems: string[] = [];
   for (const key of Object.keys(value)) {
-    if (key !== 'elements' && key !== 'input') problems.push(`guardOverrides.${key} is not a known key (elements, input).`);
+    if (key !== 'elements' && key !== 'input')
+      problems.push(`guardOverrides.${key} is not a known key (elements, input).`);
   }
   const check = (where: string, figures: unknown) => {
     if (!isObject(figures)) {
@@ -29,15 +30,19 @@ export function overridesShapeProblems(value: unknown): string[] {
       return;
     }
     for (const [field, v] of Object.entries(figures)) {
-      if (field === 'kind' || field === 'id') problems.push(`${where}.${field} cannot be overridden.`);
+      if (field === 'kind' || field === 'id')
+        problems.push(`${where}.${field} cannot be overridden.`);
       else if (typeof v !== 'boolean' && (typeof v !== 'number' || !Number.isFinite(v))) {
         problems.push(`${where}.${field} must be a number in SI units (or true/false).`);
       }
     }
   };
   if (value.elements !== undefined) {
-    if (!isObject(value.elements)) problems.push('guardOverrides.elements must be an object keyed by element id.');
-    else for (const [id, figures] of Object.entries(value.elements)) check(`guardOverrides.elements.${id}`, figures);
+    if (!isObject(value.elements))
+      problems.push('guardOverrides.elements must be an object keyed by element id.');
+    else
+      for (const [id, figures] of Object.entries(value.elements))
+        check(`guardOverrides.elements.${id}`, figures);
   }
   if (value.input !== undefined) check('guardOverrides.input', value.input);
   return problems;
@@ -49,12 +54,17 @@ export type AppliedGuard = { guard: Guard; problems: [] } | { guard: null; probl
  * The recipe with the overrides laid over it. Unknown element ids and a result that is no
  * longer a well-formed guard are reported, never silently dropped.
  */
-export function applyGuardOverrides(recipe: Guard, overrides: GuardOverrides | null | undefined): AppliedGuard {
+export function applyGuardOverrides(
+  recipe: Guard,
+  overrides: GuardOverrides | null | undefined,
+): AppliedGuard {
   const shape = overridesShapeProblems(overrides);
   if (shape.length > 0) return { guard: null, problems: shape };
   if (!overrides) return { guard: structuredClone(recipe), problems: [] };
 
-  const elementIds = new Set(recipe.stages.flatMap((s) => [s.series.id, ...s.shunts.map((e) => e.id)]));
+  const elementIds = new Set(
+    recipe.stages.flatMap((s) => [s.series.id, ...s.shunts.map((e) => e.id)]),
+  );
   const problems = Object.keys(overrides.elements ?? {})
     .filter((id) => !elementIds.has(id))
     .map((id) => `guardOverrides.elements.${id}: the recipe has no element "${id}".`);
@@ -62,10 +72,15 @@ export function applyGuardOverrides(recipe: Guard, overrides: GuardOverrides | n
 
   const patch = <T extends GuardElement>(element: T): T => {
     const figures = overrides.elements?.[element.id];
-    return figures ? ({ ...element, ...figures, kind: element.kind, id: element.id } as T) : { ...element };
+    return figures
+      ? ({ ...element, ...figures, kind: element.kind, id: element.id } as T)
+      : { ...element };
   };
   const guard: Guard = {
-    stages: recipe.stages.map((stage) => ({ series: patch(stage.series), shunts: stage.shunts.map(patch) })),
+    stages: recipe.stages.map((stage) => ({
+      series: patch(stage.series),
+      shunts: stage.shunts.map(patch),
+    })),
     input: { ...recipe.input, ...(overrides.input ?? {}) },
   };
   const after = guardShapeProblems(guard);

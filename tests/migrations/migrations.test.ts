@@ -1,6 +1,11 @@
 import { QueryTypes, type Model, type ModelStatic, type QueryInterface } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { MIGRATION_TABLE, migrationStatus, revertMigrations, runMigrations } from '@/lib/db-migrate';
+import {
+  MIGRATION_TABLE,
+  migrationStatus,
+  revertMigrations,
+  runMigrations,
+} from '@/lib/db-migrate';
 import { MIGRATIONS } from '@/migrations';
 import { freshDb, type FreshDb } from '../models/fresh-db';
 
@@ -15,7 +20,10 @@ afterAll(async () => db.cleanup());
 
 async function tables(): Promise<string[]> {
   const names = (await qi.showAllTables()) as unknown as Array<string | { tableName: string }>;
-  return names.map((t) => (typeof t === 'string' ? t : t.tableName)).filter((t) => t !== 'sqlite_sequence').sort();
+  return names
+    .map((t) => (typeof t === 'string' ? t : t.tableName))
+    .filter((t) => t !== 'sqlite_sequence')
+    .sort();
 }
 
 type Row = Record<string, unknown>;
@@ -34,7 +42,8 @@ async function foreignKeyColumns(): Promise<string[]> {
   }
   const out: string[] = [];
   for (const table of await tables()) {
-    for (const fk of await select(`PRAGMA foreign_key_list(\`${table}\`)`)) out.push(`${table}.${String(fk.from)}`);
+    for (const fk of await select(`PRAGMA foreign_key_list(\`${table}\`)`))
+      out.push(`${table}.${String(fk.from)}`);
   }
   return out;
 }
@@ -83,7 +92,9 @@ describe('migrations', () => {
           expect(column.allowNull, `${model.name}.${name} nullability`).toBe(modelAllowsNull);
         }
       }
-      const extra = Object.keys(columns).filter((c) => !Object.values(model.getAttributes()).some((a) => (a.field ?? '') === c));
+      const extra = Object.keys(columns).filter(
+        (c) => !Object.values(model.getAttributes()).some((a) => (a.field ?? '') === c),
+      );
       expect(extra, `${model.name} table has columns the model lacks`).toEqual([]);
     }
   });
@@ -99,7 +110,9 @@ describe('migrations', () => {
   });
 
   it('make (stripId, position, level) unique on terminals', async () => {
-    const unique = (await indexes('terminals')).filter((i) => i.unique).map((i) => i.columns.join(','));
+    const unique = (await indexes('terminals'))
+      .filter((i) => i.unique)
+      .map((i) => i.columns.join(','));
     expect(unique).toContain('stripId,position,level');
   });
 

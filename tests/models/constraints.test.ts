@@ -29,13 +29,19 @@ describe('User', () => {
   it('refuses a second account with the same e-mail, whatever its case', async () => {
     await m.User.create({ email: 'pell.unique@example.test', name: 'Pell', passwordHash: hash });
     await expect(
-      m.User.create({ email: ' PELL.Unique@Example.TEST ', name: 'Pell again', passwordHash: hash }),
+      m.User.create({
+        email: ' PELL.Unique@Example.TEST ',
+        name: 'Pell again',
+        passwordHash: hash,
+      }),
     ).rejects.toBeInstanceOf(UniqueConstraintError);
     expect(await m.User.count({ where: { email: 'pell.unique@example.test' } })).toBe(1);
   });
 
   it('refuses a malformed e-mail and names the field', async () => {
-    const err = await m.User.create({ email: 'not-an-email', name: 'X', passwordHash: hash }).catch((e: unknown) => e);
+    const err = await m.User.create({ email: 'not-an-email', name: 'X', passwordHash: hash }).catch(
+      (e: unknown) => e,
+    );
     expect(err).toBeInstanceOf(ValidationError);
     expect((err as ValidationError).errors.map((e) => e.path)).toContain('email');
   });
@@ -49,7 +55,9 @@ describe('User', () => {
   it('leaves the hash out of default queries', async () => {
     const user = await m.User.findOne({ where: { email: 'pell.unique@example.test' } });
     expect(user?.get('passwordHash')).toBeUndefined();
-    const withHash = await m.User.scope('withPassword').findOne({ where: { email: 'pell.unique@example.test' } });
+    const withHash = await m.User.scope('withPassword').findOne({
+      where: { email: 'pell.unique@example.test' },
+    });
     expect(bcrypt.compareSync('not-a-real-password', withHash!.passwordHash)).toBe(true);
   });
 });
@@ -58,31 +66,35 @@ describe('ProjectMember', () => {
   it('accepts only the four project roles', async () => {
     const p = await project('ROLE-1');
     const u = await m.User.create({ email: 'role@example.test', name: 'Role', passwordHash: hash });
-    const err = await m.ProjectMember.create({ userId: u.id, projectId: p.id, role: 'owner' as 'viewer' }).catch(
-      (e: unknown) => e,
-    );
+    const err = await m.ProjectMember.create({
+      userId: u.id,
+      projectId: p.id,
+      role: 'owner' as 'viewer',
+    }).catch((e: unknown) => e);
     expect(err).toBeInstanceOf(ValidationError);
-    expect((err as Error).message).toMatch(/role must be one of: engineer, technician, reviewer, viewer/);
-    // admin is global (User.isAdmin), not a project role
-    await expect(m.ProjectMember.create({ userId: u.id, projectId: p.id, role: 'admin' as 'viewer' })).rejects.toThrow(
-      ValidationError,
+    expect((err as Error).message).toMatch(
+      /role must be one of: engineer, technician, reviewer, viewer/,
     );
+    // admin is global (User.isAdmin), not a project role
+    await expect(
+      m.ProjectMember.create({ userId: u.id, projectId: p.id, role: 'admin' as 'viewer' }),
+    ).rejects.toThrow(ValidationError);
   });
 
   it('holds one role per user per project', async () => {
     const p = await project('ROLE-2');
     const u = await m.User.create({ email: 'once@example.test', name: 'Once', passwordHash: hash });
     await m.ProjectMember.create({ userId: u.id, projectId: p.id, role: 'engineer' });
-    await expect(m.ProjectMember.create({ userId: u.id, projectId: p.id, role: 'viewer' })).rejects.toBeInstanceOf(
-      UniqueConstraintError,
-    );
+    await expect(
+      m.ProjectMember.create({ userId: u.id, projectId: p.id, role: 'viewer' }),
+    ).rejects.toBeInstanceOf(UniqueConstraintError);
   });
 
   it('refuses a membership of a user that does not exist', async () => {
     const p = await project('ROLE-3');
-    await expect(m.ProjectMember.create({ userId: 99_999, projectId: p.id, role: 'viewer' })).rejects.toBeInstanceOf(
-      ForeignKeyConstraintError,
-    );
+    await expect(
+      m.ProjectMember.create({ userId: 99_999, projectId: p.id, role: 'viewer' }),
+    ).rejects.toBeInstanceOf(ForeignKeyConstraintError);
   });
 });
 
@@ -100,20 +112,32 @@ describe('Project settings', () => {
   });
 
   it('refuses an out-of-range tolerance and an unknown coupling', async () => {
-    await expect(m.Project.create({ name: 'Bad', code: 'BAD-1', supplyTolerance: 1.5 })).rejects.toThrow(
-      /supplyTolerance must be a fraction/,
-    );
     await expect(
-      m.Project.create({ name: 'Bad', code: 'BAD-2', surgeCoupling: 'line-ground' as 'line-earth' }),
+      m.Project.create({ name: 'Bad', code: 'BAD-1', supplyTolerance: 1.5 }),
+    ).rejects.toThrow(/supplyTolerance must be a fraction/);
+    await expect(
+      m.Project.create({
+        name: 'Bad',
+        code: 'BAD-2',
+        surgeCoupling: 'line-ground' as 'line-earth',
+      }),
     ).rejects.toThrow(/surgeCoupling must be one of/);
-    await expect(m.Project.create({ name: 'Bad', code: 'bad code' })).rejects.toThrow(/code may hold/);
+    await expect(m.Project.create({ name: 'Bad', code: 'bad code' })).rejects.toThrow(
+      /code may hold/,
+    );
   });
 });
 
 describe('Terminal', () => {
   it('holds one terminal per strip position and level; stacked levels share a position', async () => {
     const { strip: s } = await strip('TRM-1');
-    await m.Terminal.create({ stripId: s.id, position: 4, level: 1, label: 'X1:4', circuitClass: 'sensitive' });
+    await m.Terminal.create({
+      stripId: s.id,
+      position: 4,
+      level: 1,
+      label: 'X1:4',
+      circuitClass: 'sensitive',
+    });
     await m.Terminal.create({
       stripId: s.id,
       position: 4,
@@ -125,20 +149,37 @@ describe('Terminal', () => {
       currentKind: 'dc',
     });
     await expect(
-      m.Terminal.create({ stripId: s.id, position: 4, level: 1, label: 'X1:4b', circuitClass: 'spare' }),
+      m.Terminal.create({
+        stripId: s.id,
+        position: 4,
+        level: 1,
+        label: 'X1:4b',
+        circuitClass: 'spare',
+      }),
     ).rejects.toBeInstanceOf(UniqueConstraintError);
   });
 
   it('refuses position 0, level 0 and unknown classes', async () => {
     const { strip: s } = await strip('TRM-2');
-    await expect(m.Terminal.create({ stripId: s.id, position: 0, label: 'X1:0', circuitClass: 'spare' })).rejects.toThrow(
-      /position must be 1 or more/,
-    );
     await expect(
-      m.Terminal.create({ stripId: s.id, position: 1, level: 0, label: 'X1:1', circuitClass: 'spare' }),
+      m.Terminal.create({ stripId: s.id, position: 0, label: 'X1:0', circuitClass: 'spare' }),
+    ).rejects.toThrow(/position must be 1 or more/);
+    await expect(
+      m.Terminal.create({
+        stripId: s.id,
+        position: 1,
+        level: 0,
+        label: 'X1:1',
+        circuitClass: 'spare',
+      }),
     ).rejects.toThrow(/level must be 1 or more/);
     await expect(
-      m.Terminal.create({ stripId: s.id, position: 1, label: 'X1:1', circuitClass: 'live' as 'hazard' }),
+      m.Terminal.create({
+        stripId: s.id,
+        position: 1,
+        label: 'X1:1',
+        circuitClass: 'live' as 'hazard',
+      }),
     ).rejects.toThrow(/circuitClass must be one of/);
   });
 
@@ -159,7 +200,13 @@ describe('Terminal', () => {
       }),
     ).rejects.toThrow(/frequency is required/);
     await expect(
-      m.Terminal.create({ stripId: s.id, position: 1, label: 'X1:1', circuitClass: 'sensitive', hazardKind: 'mains-line' }),
+      m.Terminal.create({
+        stripId: s.id,
+        position: 1,
+        label: 'X1:1',
+        circuitClass: 'sensitive',
+        hazardKind: 'mains-line',
+      }),
     ).rejects.toThrow(/only for hazard terminals/);
   });
 });
@@ -176,12 +223,19 @@ describe('GuardRecipe and Channel', () => {
       } as never,
     }).catch((e: unknown) => e);
     expect(err).toBeInstanceOf(ValidationError);
-    expect((err as Error).message).toContain('guard.stages[0].series.resistance is required (a number in SI units).');
+    expect((err as Error).message).toContain(
+      'guard.stages[0].series.resistance is required (a number in SI units).',
+    );
   });
 
   it('refuses malformed overrides and a channel whose signal and return are one terminal', async () => {
     const { project: p, cabinet, strip: s } = await strip('GRD-2');
-    const t = await m.Terminal.create({ stripId: s.id, position: 1, label: 'X1:1', circuitClass: 'sensitive' });
+    const t = await m.Terminal.create({
+      stripId: s.id,
+      position: 1,
+      label: 'X1:1',
+      circuitClass: 'sensitive',
+    });
     await expect(
       m.Channel.create({
         projectId: p.id,
@@ -202,7 +256,12 @@ describe('GuardRecipe and Channel', () => {
       }),
     ).rejects.toThrow(/guardOverrides.elements.R1.resistance must be a number/);
     await expect(
-      m.Channel.create({ projectId: p.id, cabinetId: cabinet.id, tag: 'AI-3', signalType: 'analog' as 'other' }),
+      m.Channel.create({
+        projectId: p.id,
+        cabinetId: cabinet.id,
+        tag: 'AI-3',
+        signalType: 'analog' as 'other',
+      }),
     ).rejects.toThrow(/signalType must be one of/);
   });
 
@@ -211,9 +270,18 @@ describe('GuardRecipe and Channel', () => {
     const recipe = await m.GuardRecipe.create({
       projectId: p.id,
       name: 'Wire only',
-      guard: { stages: [{ series: { kind: 'wire', id: 'W1', resistance: 0.1 }, shunts: [] }], input: { positiveRail: 24, negativeRail: 0, absMaxBeyondRail: 0.3 } },
+      guard: {
+        stages: [{ series: { kind: 'wire', id: 'W1', resistance: 0.1 }, shunts: [] }],
+        input: { positiveRail: 24, negativeRail: 0, absMaxBeyondRail: 0.3 },
+      },
     });
-    await m.Channel.create({ projectId: p.id, cabinetId: cabinet.id, tag: 'DI-1', signalType: 'digital-24', guardRecipeId: recipe.id });
+    await m.Channel.create({
+      projectId: p.id,
+      cabinetId: cabinet.id,
+      tag: 'DI-1',
+      signalType: 'digital-24',
+      guardRecipeId: recipe.id,
+    });
     await expect(recipe.destroy()).rejects.toBeInstanceOf(ForeignKeyConstraintError);
     expect(await m.GuardRecipe.findByPk(recipe.id)).not.toBeNull();
   });
@@ -222,20 +290,56 @@ describe('GuardRecipe and Channel', () => {
 describe('Decision and Markup', () => {
   it('needs a justification to accept a finding', async () => {
     const p = await project('DEC-1');
-    const reviewer = await m.User.create({ email: 'rev@example.test', name: 'Rev', passwordHash: hash });
+    const reviewer = await m.User.create({
+      email: 'rev@example.test',
+      name: 'Rev',
+      passwordHash: hash,
+    });
     const run = await m.AuditRun.create({ projectId: p.id, status: 'done' });
-    const finding = await m.Finding.create({ auditRunId: run.id, kind: 'stress', stressCase: 'ac', verdict: 'fails', reason: 'R1 overheats', key: 'k1' });
+    const finding = await m.Finding.create({
+      auditRunId: run.id,
+      kind: 'stress',
+      stressCase: 'ac',
+      verdict: 'fails',
+      reason: 'R1 overheats',
+      key: 'k1',
+    });
     await expect(
-      m.Decision.create({ findingId: finding.id, reviewerId: reviewer.id, outcome: 'accept', justification: '  ' }),
+      m.Decision.create({
+        findingId: finding.id,
+        reviewerId: reviewer.id,
+        outcome: 'accept',
+        justification: '  ',
+      }),
     ).rejects.toThrow(/justification is required/);
-    await m.Decision.create({ findingId: finding.id, reviewerId: reviewer.id, outcome: 'require-fix', justification: null });
+    await m.Decision.create({
+      findingId: finding.id,
+      reviewerId: reviewer.id,
+      outcome: 'require-fix',
+      justification: null,
+    });
   });
 
   it('stores a replayed offline markup once (clientId is unique)', async () => {
     const { project: p, strip: s } = await strip('MRK-1');
-    const tech = await m.User.create({ email: 'tech@example.test', name: 'Tech', passwordHash: hash });
-    const t = await m.Terminal.create({ stripId: s.id, position: 1, label: 'X1:1', circuitClass: 'sensitive' });
-    const markup = { projectId: p.id, terminalId: t.id, authorId: tech.id, kind: 'component' as const, clientId: 'c0ffee00-1111' };
+    const tech = await m.User.create({
+      email: 'tech@example.test',
+      name: 'Tech',
+      passwordHash: hash,
+    });
+    const t = await m.Terminal.create({
+      stripId: s.id,
+      position: 1,
+      label: 'X1:1',
+      circuitClass: 'sensitive',
+    });
+    const markup = {
+      projectId: p.id,
+      terminalId: t.id,
+      authorId: tech.id,
+      kind: 'component' as const,
+      clientId: 'c0ffee00-1111',
+    };
     await m.Markup.create(markup);
     await expect(m.Markup.create(markup)).rejects.toBeInstanceOf(UniqueConstraintError);
     expect(await m.Markup.count({ where: { clientId: 'c0ffee00-1111' } })).toBe(1);
@@ -244,12 +348,23 @@ describe('Decision and Markup', () => {
 
 describe('AuditLog is append-only', () => {
   it('accepts new entries and refuses every update and delete path', async () => {
-    const entry = await m.AuditLog.create({ actorId: 1, projectId: 1, action: 'terminal.update', entity: 'Terminal', entityId: 7, detail: { from: 'X3:14' } });
+    const entry = await m.AuditLog.create({
+      actorId: 1,
+      projectId: 1,
+      action: 'terminal.update',
+      entity: 'Terminal',
+      entityId: 7,
+      detail: { from: 'X3:14' },
+    });
 
     await expect(entry.update({ action: 'tampered' })).rejects.toBeInstanceOf(AppendOnlyError);
     await expect(entry.destroy()).rejects.toBeInstanceOf(AppendOnlyError);
-    await expect(m.AuditLog.update({ action: 'tampered' }, { where: { id: entry.id } })).rejects.toBeInstanceOf(AppendOnlyError);
-    await expect(m.AuditLog.destroy({ where: { id: entry.id } })).rejects.toBeInstanceOf(AppendOnlyError);
+    await expect(
+      m.AuditLog.update({ action: 'tampered' }, { where: { id: entry.id } }),
+    ).rejects.toBeInstanceOf(AppendOnlyError);
+    await expect(m.AuditLog.destroy({ where: { id: entry.id } })).rejects.toBeInstanceOf(
+      AppendOnlyError,
+    );
     await expect(m.AuditLog.destroy({ truncate: true })).rejects.toBeInstanceOf(AppendOnlyError);
 
     const reread = await m.AuditLog.findByPk(entry.id);

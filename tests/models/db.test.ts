@@ -14,7 +14,9 @@ afterAll(async () => {
 describe('createSequelize', () => {
   it('defaults to SQLite at data/crossfault.sqlite and lets SQLITE_PATH override it', () => {
     expect(DEFAULT_SQLITE_PATH).toBe(path.join('data', 'crossfault.sqlite'));
-    expect(configFromEnv({ SQLITE_PATH: ' /tmp/x.sqlite ' } as unknown as NodeJS.ProcessEnv)).toEqual({ url: undefined, sqlitePath: '/tmp/x.sqlite' });
+    expect(
+      configFromEnv({ SQLITE_PATH: ' /tmp/x.sqlite ' } as unknown as NodeJS.ProcessEnv),
+    ).toEqual({ url: undefined, sqlitePath: '/tmp/x.sqlite' });
     const file = path.join(dir, 'nested', 'folder', 'app.sqlite');
     const s = createSequelize({ sqlitePath: file });
     expect(s.getDialect()).toBe('sqlite');
@@ -22,7 +24,9 @@ describe('createSequelize', () => {
   });
 
   it('switches dialect on DATABASE_URL', () => {
-    expect(createSequelize({ url: 'postgres://u:p@db.invalid:5432/crossfault' }).getDialect()).toBe('postgres');
+    expect(createSequelize({ url: 'postgres://u:p@db.invalid:5432/crossfault' }).getDialect()).toBe(
+      'postgres',
+    );
     const mem = createSequelize({ url: 'sqlite::memory:' });
     expect(mem.getDialect()).toBe('sqlite');
     expect((mem as unknown as { options: { storage?: string } }).options.storage).toBe(':memory:');

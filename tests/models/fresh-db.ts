@@ -8,7 +8,7 @@ import crypto from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { closeDb, createSequelize, useDatabase, type Db } from '@/lib/db';
+import { closeDb, createSequelize, bindDatabase, type Db } from '@/lib/db';
 import { runMigrations } from '@/lib/db-migrate';
 
 export interface FreshDb extends Db {
@@ -39,11 +39,11 @@ export async function freshDb(options: { migrate?: boolean } = {}): Promise<Fres
   let release: () => Promise<void>;
   if (serverUrl) {
     const pg = await freshPostgres(serverUrl);
-    db = useDatabase(createSequelize({ url: pg.url }));
+    db = bindDatabase(createSequelize({ url: pg.url }));
     release = pg.drop;
   } else {
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'crossfault-test-'));
-    db = useDatabase(createSequelize({ sqlitePath: path.join(dir, 'test.sqlite') }));
+    db = bindDatabase(createSequelize({ sqlitePath: path.join(dir, 'test.sqlite') }));
     release = async () => fs.rmSync(dir, { recursive: true, force: true });
   }
   if (options.migrate !== false) await runMigrations(db.sequelize);

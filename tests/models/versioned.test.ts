@@ -20,7 +20,12 @@ afterAll(async () => db.cleanup());
 let nextPosition = 1;
 async function terminal(): Promise<Terminal> {
   const position = nextPosition++;
-  return m.Terminal.create({ stripId, position, label: `X1:${position}`, circuitClass: 'sensitive' });
+  return m.Terminal.create({
+    stripId,
+    position,
+    label: `X1:${position}`,
+    circuitClass: 'sensitive',
+  });
 }
 
 describe('updateVersioned', () => {
@@ -37,7 +42,9 @@ describe('updateVersioned', () => {
   it('refuses a stale version, carries the current record, and changes nothing', async () => {
     const t = await terminal();
     await updateVersioned(m.Terminal, t.id, 0, { wireColour: 'BU' }); // first editor wins
-    const err = await updateVersioned(m.Terminal, t.id, 0, { wireColour: 'RD' }).catch((e: unknown) => e);
+    const err = await updateVersioned(m.Terminal, t.id, 0, { wireColour: 'RD' }).catch(
+      (e: unknown) => e,
+    );
     expect(err).toBeInstanceOf(ConflictError);
     const current = (err as ConflictError).current as { wireColour: string; version: number };
     expect(current.wireColour).toBe('BU');
@@ -49,12 +56,17 @@ describe('updateVersioned', () => {
     const t = await terminal();
     // Simulates a second editor saving in the gap: bump the row just before our UPDATE runs.
     m.Terminal.addHook('beforeUpdate', 'concurrentWriter', async () => {
-      await db.sequelize.query('UPDATE terminals SET version = version + 1, "wireNumber" = ? WHERE id = ?', {
-        replacements: ['W-OTHER', t.id],
-      });
+      await db.sequelize.query(
+        'UPDATE terminals SET version = version + 1, "wireNumber" = ? WHERE id = ?',
+        {
+          replacements: ['W-OTHER', t.id],
+        },
+      );
     });
     try {
-      const err = await updateVersioned(m.Terminal, t.id, 0, { wireNumber: 'W-MINE' }).catch((e: unknown) => e);
+      const err = await updateVersioned(m.Terminal, t.id, 0, { wireNumber: 'W-MINE' }).catch(
+        (e: unknown) => e,
+      );
       expect(err).toBeInstanceOf(ConflictError);
       expect(((err as ConflictError).current as { wireNumber: string }).wireNumber).toBe('W-OTHER');
     } finally {
@@ -65,7 +77,9 @@ describe('updateVersioned', () => {
 
   it('turns model validation into a ValidationError naming the field', async () => {
     const t = await terminal();
-    const err = await updateVersioned(m.Terminal, t.id, 0, { position: 0 }).catch((e: unknown) => e);
+    const err = await updateVersioned(m.Terminal, t.id, 0, { position: 0 }).catch(
+      (e: unknown) => e,
+    );
     expect(err).toBeInstanceOf(ValidationError);
     expect((err as ValidationError).fieldErrors.position).toEqual(['position must be 1 or more.']);
     expect((await m.Terminal.findByPk(t.id))?.position).toBe(t.position);
@@ -74,22 +88,32 @@ describe('updateVersioned', () => {
   it('turns a taken strip position into a ValidationError', async () => {
     const a = await terminal();
     const b = await terminal();
-    const err = await updateVersioned(m.Terminal, b.id, 0, { position: a.position }).catch((e: unknown) => e);
+    const err = await updateVersioned(m.Terminal, b.id, 0, { position: a.position }).catch(
+      (e: unknown) => e,
+    );
     expect(err).toBeInstanceOf(ValidationError);
     expect((err as ValidationError).message).toMatch(/Already in use/);
   });
 
   it('refuses to set id or version directly, and a missing record', async () => {
     const t = await terminal();
-    await expect(updateVersioned(m.Terminal, t.id, 0, { version: 7 })).rejects.toThrow(/cannot be changed directly: version/);
-    await expect(updateVersioned(m.Terminal, t.id, -1, { notes: 'x' })).rejects.toBeInstanceOf(ValidationError);
-    await expect(updateVersioned(m.Terminal, 987_654, 0, { notes: 'x' })).rejects.toBeInstanceOf(NotFoundError);
+    await expect(updateVersioned(m.Terminal, t.id, 0, { version: 7 })).rejects.toThrow(
+      /cannot be changed directly: version/,
+    );
+    await expect(updateVersioned(m.Terminal, t.id, -1, { notes: 'x' })).rejects.toBeInstanceOf(
+      ValidationError,
+    );
+    await expect(updateVersioned(m.Terminal, 987_654, 0, { notes: 'x' })).rejects.toBeInstanceOf(
+      NotFoundError,
+    );
   });
 
   it('works the same for every editable model (Project)', async () => {
     const p = await m.Project.create({ name: 'Other', code: 'VER-2' });
     await updateVersioned(m.Project, p.id, 0, { ambientC: 50 });
-    await expect(updateVersioned(m.Project, p.id, 0, { ambientC: 55 })).rejects.toBeInstanceOf(ConflictError);
+    await expect(updateVersioned(m.Project, p.id, 0, { ambientC: 55 })).rejects.toBeInstanceOf(
+      ConflictError,
+    );
     expect((await m.Project.findByPk(p.id))?.ambientC).toBe(50);
   });
 });

@@ -14,18 +14,23 @@ import {
 import { applyGuardOverrides } from '@/lib/presets/overrides';
 import type { TvsElement, VaristorElement } from '@/lib/stress/types';
 
-const elements = (stages: typeof DIGITAL_24V_SINKING.guard.stages) => stages.flatMap((s) => [s.series, ...s.shunts]);
+const elements = (stages: typeof DIGITAL_24V_SINKING.guard.stages) =>
+  stages.flatMap((s) => [s.series, ...s.shunts]);
 
 describe('guard presets', () => {
   it('are well-formed guards, labelled typical, naming no manufacturer', () => {
     for (const p of presetRecipes()) expect(guardShapeProblems(p.guard), p.key).toEqual([]);
-    for (const p of [...INPUT_PRESETS, ...TERMINAL_BLOCK_PRESETS]) expect(p.caution).toBe(TYPICAL_CAUTION);
+    for (const p of [...INPUT_PRESETS, ...TERMINAL_BLOCK_PRESETS])
+      expect(p.caution).toBe(TYPICAL_CAUTION);
     expect(presetRecipes().map((p) => p.key)).toContain('tb-fused-500mA+di-24v-sinking');
   });
 
   it('24 V sinking input draws an IEC 61131-2 type 1 ON current at 24 V (2–15 mA, from memory)', () => {
     const series = DIGITAL_24V_SINKING.guard.stages.map((s) => s.series);
-    const seriesResistance = series.reduce((sum, e) => sum + ('resistance' in e && e.resistance !== undefined ? e.resistance : 0), 0);
+    const seriesResistance = series.reduce(
+      (sum, e) => sum + ('resistance' in e && e.resistance !== undefined ? e.resistance : 0),
+      0,
+    );
     expect(series.map((e) => e.kind)).toContain('resistor');
     const current = 24 / (seriesResistance + DIGITAL_24V_SINKING.guard.input.inputResistance!);
     expect(current).toBeGreaterThan(0.002);
@@ -33,7 +38,10 @@ describe('guard presets', () => {
   });
 
   it('clamps do not conduct at the highest 24 V supply (IEC 61131-2: 24 V + 20 % = 28.8 V)', () => {
-    const clamps = [...INPUT_PRESETS.flatMap((p) => elements(p.guard.stages)), ...TERMINAL_BLOCK_PRESETS.flatMap((b) => elements(b.stages))];
+    const clamps = [
+      ...INPUT_PRESETS.flatMap((p) => elements(p.guard.stages)),
+      ...TERMINAL_BLOCK_PRESETS.flatMap((b) => elements(b.stages)),
+    ];
     const tvs = clamps.filter((e): e is TvsElement => e.kind === 'tvs');
     const movs = clamps.filter((e): e is VaristorElement => e.kind === 'varistor');
     expect(tvs.length).toBeGreaterThan(0);
@@ -52,9 +60,13 @@ describe('guard presets', () => {
   });
 
   it('4–20 mA burden gives 5 V at 20 mA, inside the converter rail', () => {
-    const burden = elements(CURRENT_LOOP_4_20_BURDEN.guard.stages).find((e) => e.id === 'RB') as { resistance: number };
+    const burden = elements(CURRENT_LOOP_4_20_BURDEN.guard.stages).find((e) => e.id === 'RB') as {
+      resistance: number;
+    };
     expect(0.02 * burden.resistance).toBeCloseTo(5, 10);
-    expect(0.02 * burden.resistance).toBeLessThan(CURRENT_LOOP_4_20_BURDEN.guard.input.positiveRail);
+    expect(0.02 * burden.resistance).toBeLessThan(
+      CURRENT_LOOP_4_20_BURDEN.guard.input.positiveRail,
+    );
   });
 
   it('fused terminal: the fuse carries a 20 mA loop with wide margin (common practice, no source)', () => {
@@ -65,14 +77,32 @@ describe('guard presets', () => {
 
 describe('guardShapeProblems', () => {
   it('names a misspelt rating instead of letting the part be judged without it', () => {
-    const guard = structuredClone(DIGITAL_24V_SINKING.guard) as unknown as { stages: Array<{ series: Record<string, unknown> }> };
+    const guard = structuredClone(DIGITAL_24V_SINKING.guard) as unknown as {
+      stages: Array<{ series: Record<string, unknown> }>;
+    };
     guard.stages[1]!.series.ratedpower = 0.5;
-    expect(guardShapeProblems(guard)).toEqual(['guard.stages[1].series.ratedpower is not a field of this element.']);
+    expect(guardShapeProblems(guard)).toEqual([
+      'guard.stages[1].series.ratedpower is not a field of this element.',
+    ]);
   });
 
   it('names an unknown element kind and a missing boolean', () => {
     const problems = guardShapeProblems({
-      stages: [{ series: { kind: 'gdt', id: 'G1' }, shunts: [{ kind: 'tvs', id: 'D1', standoffVoltage: 33, breakdownVoltage: 36.7, clampVoltage: 53.3, peakPulseCurrent: 11.3 }] }],
+      stages: [
+        {
+          series: { kind: 'gdt', id: 'G1' },
+          shunts: [
+            {
+              kind: 'tvs',
+              id: 'D1',
+              standoffVoltage: 33,
+              breakdownVoltage: 36.7,
+              clampVoltage: 53.3,
+              peakPulseCurrent: 11.3,
+            },
+          ],
+        },
+      ],
       input: { positiveRail: 24, negativeRail: 0, absMaxBeyondRail: 0.3 },
     });
     expect(problems).toEqual([
@@ -91,7 +121,10 @@ describe('withTerminalBlock', () => {
   });
 
   it('refuses a block whose element ids clash with the guard', () => {
-    const clashing = { ...FUSED_TERMINAL, stages: [{ series: { kind: 'wire' as const, id: 'R1', resistance: 0.1 }, shunts: [] }] };
+    const clashing = {
+      ...FUSED_TERMINAL,
+      stages: [{ series: { kind: 'wire' as const, id: 'R1', resistance: 0.1 }, shunts: [] }],
+    };
     expect(() => withTerminalBlock(clashing, DIGITAL_24V_SINKING.guard)).toThrow(/Element id "R1"/);
   });
 });
@@ -99,18 +132,30 @@ describe('withTerminalBlock', () => {
 describe('applyGuardOverrides', () => {
   it('lays the as-built figures over the recipe and leaves the recipe alone', () => {
     const recipe = DIGITAL_24V_SINKING.guard;
-    const out = applyGuardOverrides(recipe, { elements: { R1: { resistance: 1000, ratedPower: 0.25 } }, input: { absMaxCurrent: 0.03 } });
+    const out = applyGuardOverrides(recipe, {
+      elements: { R1: { resistance: 1000, ratedPower: 0.25 } },
+      input: { absMaxCurrent: 0.03 },
+    });
     expect(out.problems).toEqual([]);
-    expect(out.guard!.stages[1]!.series).toMatchObject({ kind: 'resistor', id: 'R1', resistance: 1000, ratedPower: 0.25, limitingVoltage: 350 });
+    expect(out.guard!.stages[1]!.series).toMatchObject({
+      kind: 'resistor',
+      id: 'R1',
+      resistance: 1000,
+      ratedPower: 0.25,
+      limitingVoltage: 350,
+    });
     expect(out.guard!.input.absMaxCurrent).toBe(0.03);
     expect((recipe.stages[1]!.series as { resistance: number }).resistance).toBe(2200);
   });
 
   it('reports an unknown element and a non-numeric figure instead of dropping them', () => {
-    expect(applyGuardOverrides(DIGITAL_24V_SINKING.guard, { elements: { R9: { resistance: 1 } } }).problems).toEqual([
-      'guardOverrides.elements.R9: the recipe has no element "R9".',
-    ]);
-    const bad = applyGuardOverrides(DIGITAL_24V_SINKING.guard, { elements: { R1: { resistance: Number.NaN } } });
+    expect(
+      applyGuardOverrides(DIGITAL_24V_SINKING.guard, { elements: { R9: { resistance: 1 } } })
+        .problems,
+    ).toEqual(['guardOverrides.elements.R9: the recipe has no element "R9".']);
+    const bad = applyGuardOverrides(DIGITAL_24V_SINKING.guard, {
+      elements: { R1: { resistance: Number.NaN } },
+    });
     expect(bad.guard).toBeNull();
     expect(bad.problems[0]).toMatch(/R1.resistance must be a number/);
   });

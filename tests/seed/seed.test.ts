@@ -5,7 +5,12 @@ import { TYPICAL_CAUTION } from '@/lib/presets/guards';
 import { applyGuardOverrides } from '@/lib/presets/overrides';
 import type { Guard } from '@/lib/stress/types';
 import type { Channel, GuardRecipe, Strip, Terminal } from '@/models';
-import { CREAMERY_PROJECT_CODE, DEMO_PASSWORD, DEMO_USERS, EVAPORATOR_PROJECT_CODE } from '@/seeders/demo-scenario';
+import {
+  CREAMERY_PROJECT_CODE,
+  DEMO_PASSWORD,
+  DEMO_USERS,
+  EVAPORATOR_PROJECT_CODE,
+} from '@/seeders/demo-scenario';
 import { seedDemo, type SeedCounts } from '@/seeders/demo';
 import { freshDb, type FreshDb } from '../models/fresh-db';
 
@@ -32,7 +37,10 @@ beforeAll(async () => {
 afterAll(async () => db.cleanup());
 
 const MAINS = new Set(['mains-line', 'mains-neutral']);
-const isMains = (t: Terminal) => t.circuitClass === 'hazard' && MAINS.has(t.hazardKind ?? '') && (t.nominalVoltage === 120 || t.nominalVoltage === 230);
+const isMains = (t: Terminal) =>
+  t.circuitClass === 'hazard' &&
+  MAINS.has(t.hazardKind ?? '') &&
+  (t.nominalVoltage === 120 || t.nominalVoltage === 230);
 const byId = () => new Map(terminals.map((t) => [t.id, t]));
 const stripOf = (t: Terminal) => strips.find((s) => s.id === t.stripId)!;
 
@@ -50,7 +58,9 @@ describe('demo seed, evaporator project', () => {
     const beside = terminals.filter(
       (t) =>
         t.circuitClass === 'sensitive' &&
-        terminals.some((h) => h.stripId === t.stripId && isMains(h) && Math.abs(h.position - t.position) === 1),
+        terminals.some(
+          (h) => h.stripId === t.stripId && isMains(h) && Math.abs(h.position - t.position) === 1,
+        ),
     );
     expect(beside.map((t) => t.label)).toContain('X1:7');
     expect(beside.length).toBeGreaterThanOrEqual(1);
@@ -58,8 +68,11 @@ describe('demo seed, evaporator project', () => {
 
   it('has a multi-level block with a 24 V DC supply level over an analog input level', () => {
     const blocks = new Map<string, Terminal[]>();
-    for (const t of terminals) if (t.blockId) blocks.set(t.blockId, [...(blocks.get(t.blockId) ?? []), t]);
-    const analog = new Set(channels.filter((c) => c.signalType === 'current-4-20').map((c) => c.signalTerminalId));
+    for (const t of terminals)
+      if (t.blockId) blocks.set(t.blockId, [...(blocks.get(t.blockId) ?? []), t]);
+    const analog = new Set(
+      channels.filter((c) => c.signalType === 'current-4-20').map((c) => c.signalTerminalId),
+    );
     const stacked = [...blocks.values()].filter((levels) => {
       const input = levels.find((t) => t.circuitClass === 'sensitive' && analog.has(t.id));
       const supply = levels.find((t) => t.hazardKind === 'dc-supply' && t.nominalVoltage === 24);
@@ -70,7 +83,8 @@ describe('demo seed, evaporator project', () => {
 
   it('has a multicore cable carrying both mains and signal cores', () => {
     const cables = new Map<string, Terminal[]>();
-    for (const t of terminals) if (t.cableId) cables.set(t.cableId, [...(cables.get(t.cableId) ?? []), t]);
+    for (const t of terminals)
+      if (t.cableId) cables.set(t.cableId, [...(cables.get(t.cableId) ?? []), t]);
     const mixed = [...cables.entries()].filter(
       ([, cores]) => cores.some(isMains) && cores.some((t) => t.circuitClass === 'sensitive'),
     );
@@ -91,14 +105,17 @@ describe('demo seed, evaporator project', () => {
   });
 
   it('has barriers on some strips and none on others', () => {
-    const withBarrier = new Set(terminals.filter((t) => t.circuitClass === 'barrier').map((t) => t.stripId));
+    const withBarrier = new Set(
+      terminals.filter((t) => t.circuitClass === 'barrier').map((t) => t.stripId),
+    );
     expect(withBarrier.size).toBeGreaterThanOrEqual(2);
     expect(strips.length - withBarrier.size).toBeGreaterThanOrEqual(2);
   });
 
   it('has jumper groups joining terminals of one strip', () => {
     const groups = new Map<string, Terminal[]>();
-    for (const t of terminals) if (t.bridgeGroup) groups.set(t.bridgeGroup, [...(groups.get(t.bridgeGroup) ?? []), t]);
+    for (const t of terminals)
+      if (t.bridgeGroup) groups.set(t.bridgeGroup, [...(groups.get(t.bridgeGroup) ?? []), t]);
     expect(groups.size).toBeGreaterThanOrEqual(3);
     for (const members of groups.values()) {
       expect(members.length).toBeGreaterThanOrEqual(2);
@@ -107,8 +124,12 @@ describe('demo seed, evaporator project', () => {
   });
 
   it('has wire colours that break IEC 60204-1 (13.2.2: green-yellow only for protective conductors)', () => {
-    const peNotGnye = terminals.filter((t) => t.circuitClass === 'earth' && t.wireColour && t.wireColour !== 'GNYE');
-    const gnyeOnSignal = terminals.filter((t) => t.circuitClass !== 'earth' && t.wireColour === 'GNYE');
+    const peNotGnye = terminals.filter(
+      (t) => t.circuitClass === 'earth' && t.wireColour && t.wireColour !== 'GNYE',
+    );
+    const gnyeOnSignal = terminals.filter(
+      (t) => t.circuitClass !== 'earth' && t.wireColour === 'GNYE',
+    );
     expect(peNotGnye.length).toBeGreaterThanOrEqual(1);
     expect(gnyeOnSignal.length).toBeGreaterThanOrEqual(1);
   });
@@ -132,8 +153,13 @@ describe('demo seed, evaporator project', () => {
     expect(presets.length).toBeGreaterThanOrEqual(4);
     for (const p of presets) expect(p.description).toContain(TYPICAL_CAUTION);
     for (const r of recipes) expect(guardShapeProblems(r.guard as Guard)).toEqual([]);
-    const kinds = new Set(presets.flatMap((p) => p.guard.stages.flatMap((s) => [s.series.kind, ...s.shunts.map((e) => e.kind)])));
-    for (const k of ['fuse', 'varistor', 'tvs', 'resistor', 'ptc', 'shuntResistor']) expect(kinds).toContain(k);
+    const kinds = new Set(
+      presets.flatMap((p) =>
+        p.guard.stages.flatMap((s) => [s.series.kind, ...s.shunts.map((e) => e.kind)]),
+      ),
+    );
+    for (const k of ['fuse', 'varistor', 'tvs', 'resistor', 'ptc', 'shuntResistor'])
+      expect(kinds).toContain(k);
   });
 
   it('wires every channel to terminals of its own cabinet, consistently both ways', () => {
@@ -144,7 +170,8 @@ describe('demo seed, evaporator project', () => {
       expect(sig!.circuitClass).toBe('sensitive');
       expect(sig!.channelId).toBe(c.id);
       expect(stripOf(sig!).cabinetId).toBe(c.cabinetId);
-      if (c.returnTerminalId !== null) expect(terminalsById.get(c.returnTerminalId)!.circuitClass).toBe('return');
+      if (c.returnTerminalId !== null)
+        expect(terminalsById.get(c.returnTerminalId)!.circuitClass).toBe('return');
     }
     expect(channels.filter((c) => c.returnTerminalId === null)).toEqual([]);
   });
@@ -152,9 +179,17 @@ describe('demo seed, evaporator project', () => {
 
 describe('demo seed, people and roles', () => {
   it('has one account per role, each signing in with the documented password', async () => {
-    expect(DEMO_USERS.map((u) => u.demoRole).sort()).toEqual(['admin', 'engineer', 'reviewer', 'technician', 'viewer']);
+    expect(DEMO_USERS.map((u) => u.demoRole).sort()).toEqual([
+      'admin',
+      'engineer',
+      'reviewer',
+      'technician',
+      'viewer',
+    ]);
     for (const u of DEMO_USERS) {
-      const user = await db.models.User.scope('withPassword').findOne({ where: { email: u.email } });
+      const user = await db.models.User.scope('withPassword').findOne({
+        where: { email: u.email },
+      });
       expect(user, u.email).not.toBeNull();
       expect(await bcrypt.compare(DEMO_PASSWORD, user!.passwordHash)).toBe(true);
       expect(user!.isAdmin).toBe(u.demoRole === 'admin');
@@ -166,7 +201,10 @@ describe('demo seed, people and roles', () => {
     const engineer = await m.User.findOne({ where: { email: 'orla.engineer@vessmoor.example' } });
     const creamery = await m.Project.findOne({ where: { code: CREAMERY_PROJECT_CODE } });
     const roles = await m.ProjectMember.findAll({ where: { userId: engineer!.id } });
-    expect(Object.fromEntries(roles.map((r) => [r.projectId, r.role]))).toEqual({ [projectId]: 'engineer', [creamery!.id]: 'viewer' });
+    expect(Object.fromEntries(roles.map((r) => [r.projectId, r.role]))).toEqual({
+      [projectId]: 'engineer',
+      [creamery!.id]: 'viewer',
+    });
     expect(creamery!.nominalVoltage).toBe(120);
     expect(creamery!.wireColourConvention).toBe('nfpa79');
   });
