@@ -1,6 +1,6 @@
 'use client';
 
-import { useMemo, useState } from 'react';
+import { useMemo, useState, type ReactNode } from 'react';
 import { Button } from '@/components/ui/button';
 import { Input } from '@/components/ui/input';
 import { solveStress } from '@/lib/stress/solve';
@@ -24,13 +24,12 @@ export interface WhatIfCase {
   verdict: Verdict;
 }
 
-/** One suggested change: new figures for one element. */
+/** One suggested change: new figures for one or more elements. */
 export interface RemedyOption {
   id: string;
   title: string;
   detail: string;
-  elementId: string;
-  changes: Record<string, number>;
+  changes: { elementId: string; field: string; to: number }[];
 }
 
 type Edits = Record<string, Record<string, number>>;
@@ -83,11 +82,14 @@ export function WhatIf({
   cases,
   conditions,
   remedies,
+  status,
 }: {
   guard: Guard;
   cases: WhatIfCase[];
   conditions: Record<HazardTerminal, StressConditions>;
   remedies: RemedyOption[];
+  /** Shown instead of the suggestions while they are worked out (or when none are needed). */
+  status?: ReactNode;
 }) {
   const elements = useMemo(() => elementsOf(guard), [guard]);
   const [edits, setEdits] = useState<Edits>({});
@@ -115,8 +117,12 @@ export function WhatIf({
   const before = worst(cases.map((c) => c.verdict));
   const after = outcome ? worst(outcome.map((o) => o.verdict)) : null;
 
-  const apply = (id: string, changes: Record<string, number>) => {
-    setEdits((e) => ({ ...e, [id]: { ...(e[id] ?? {}), ...changes } }));
+  const apply = (changes: { elementId: string; field: string; to: number }[]) => {
+    setEdits((e) => {
+      const next: Edits = { ...e };
+      for (const c of changes) next[c.elementId] = { ...(next[c.elementId] ?? {}), [c.field]: c.to };
+      return next;
+    });
     setError(null);
   };
 
@@ -125,7 +131,7 @@ export function WhatIf({
     try {
       const value = parseEng(text, unitOfField(field));
       if (!Number.isFinite(value) || value < 0) throw new Error('must be a number ≥ 0');
-      apply(element.id, { [field]: value });
+      apply([{ elementId: element.id, field, to: value }]);
       setText('');
     } catch (err) {
       setError(`${element.id}.${field}: ${err instanceof Error ? err.message : String(err)}`);
@@ -134,7 +140,9 @@ export function WhatIf({
 
   return (
     <div className="space-y-4" data-testid="what-if">
-      {remedies.length > 0 ? (
+      {status ? (
+        status
+      ) : remedies.length > 0 ? (
         <ul className="space-y-2">
           {remedies.map((r) => (
             <li key={r.id} className="flex flex-wrap items-center justify-between gap-3 rounded-sm border border-line p-3">
@@ -142,8 +150,8 @@ export function WhatIf({
                 <p className="font-medium">{r.title}</p>
                 <p className="text-sm text-muted">{r.detail}</p>
               </div>
-              <Button variant="secondary" size="sm" onClick={() => apply(r.elementId, r.changes)}>
-                Try {r.elementId} as suggested
+              <Button variant="secondary" size="sm" onClick={() => apply(r.changes)} aria-label={`What if: ${r.title}`}>
+                What if?
               </Button>
             </li>
           ))}

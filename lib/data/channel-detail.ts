@@ -9,16 +9,18 @@ import type { ActingUser } from './membership';
 import { loadStanding } from './membership';
 import { getAuditStatus, getRunSnapshot, latestRunId } from './audits';
 import { buildProjectSnapshot } from './audit-snapshot';
+import { proposeForStrip, type ResequenceView } from './resequence';
 import { loadTerminalRows, type TerminalRow as DbTerminalRow } from './schedule/terminals';
 import { can, type ProjectStanding } from '@/lib/auth/permissions';
 import { getDb } from '@/lib/db';
+import { NotFoundError } from '@/lib/errors';
 import type { Finding, ProjectSnapshot } from '@/lib/audit/types';
 import type { CheckFinding, LikelihoodClass } from '@/lib/exposure/types';
 import { applyGuardOverrides, type GuardOverrides } from '@/lib/presets/overrides';
 import { solveStress } from '@/lib/stress/solve';
+import { remedyOptions, type RemedyOptionData } from '@/lib/report/remedies';
 import { VERDICT_SEVERITY, type Guard, type StressConditions, type Verdict, type Waveform } from '@/lib/stress/types';
 import type { ExposureMechanism } from '@/models/enums';
-import { proposeResequence, type ResequenceProposal } from '@/lib/remedies/resequence';
 
 /** JSON-safe shapes the client components take (dates as strings). */
 export interface StripView {
@@ -125,6 +127,53 @@ async function runFindings(runId: number, where: { channelId?: number }): Promis
     .map((f) => ({ finding: f.finding, stripId: f.stripId ?? null }));
 }
 
+type ChannelModel = { id: number; guardOverrides: unknown };
+
+/** The channel's guard and the assumptions as the run froze them; without a run, as they stand now. */
+async function auditedGuard(
+  projectId: number,
+  runId: number | null,
+  channel: ChannelModel,
+  recipe: { guard: unknown } | null,
+): Promise<{ guard: Guard | null; overrides: GuardOverrides | null; settings: ProjectSnapshot['settings'] }> {
+  const snapshot = runId !== null ? await getRunSnapshot(projectId, runId) : null;
+  let guard: Guard | null = null;
+  let overrides: GuardOverrides | null = (channel.guardOverrides as GuardOverrides | null) ?? null;
+  const frozen = snapshot?.channels.find((c) => c.id === String(channel.id));
+  if (frozen) {
+    overrides = frozen.guardOverrides ?? null;
+    const frozenRecipe = snapshot!.guards.find((g) => g.id === frozen.guardRecipeId);
+    if (frozenRecipe) guard = applyGuardOverrides(frozenRecipe.guard, overrides).guard;
+  } else if (recipe) {
+    guard = applyGuardOverrides(recipe.guard as Guard, overrides).guard;
+  }
+  const settings = snapshot?.settings ?? (await buildProjectSnapshot(projectId)).settings;
+  return { guard, overrides, settings };
+}
+
+/**
+ * The sizing remedies for a channel under every case of the latest run (empty when it holds,
+ * has no guard or no run). Separate from the page's data: the sizing re-solves every case for
+ * each candidate and can take seconds, so the page does not wait for it. The caller has
+ * checked the user's access to the project (route wrapper).
+ */
+export async function getChannelRemedies(projectId: number, channelId: number): Promise<RemedyOptionData[]> {
+  const { models } = getDb();
+  const channel = await models.Channel.findOne({ where: { id: channelId, projectId } });
+  if (!channel) throw new NotFoundError(`Channel ${channelId} not found in this project.`);
+  const runId = await latestRunId(projectId);
+  if (runId === null) return [];
+  const recipe = channel.guardRecipeId != null ? await models.GuardRecipe.findByPk(channel.guardRecipeId, { attributes: ['id', 'guard'] }) : null;
+  const { guard, settings } = await auditedGuard(projectId, runId, channel, recipe);
+  const findings = (await runFindings(runId, { channelId })).map((s) => s.finding);
+  if (!guard || findings.every((f) => f.verdict === 'holds')) return [];
+  return remedyOptions(
+    guard,
+    findings.filter((f) => f.stress).map((f) => ({ stress: f.stress!, appliedTo: f.appliedTo })),
+    conditionsOf(settings),
+  );
+}
+
 /** The channel page's data, or null when the user may not read the project's audit or the channel is not in it. */
 export async function getChannelDetail(user: ActingUser, projectId: number, channelId: number): Promise<ChannelDetail | null> {
   const standing = await loadStanding(user, projectId);
@@ -137,20 +186,7 @@ export async function getChannelDetail(user: ActingUser, projectId: number, chan
 
   const runId = await latestRunId(projectId);
   const status = runId !== null ? await getAuditStatus(projectId) : null;
-  const snapshot = runId !== null ? await getRunSnapshot(projectId, runId) : null;
-
-  // The guard as the run saw it; without a run, as the schedule has it now.
-  let guard: Guard | null = null;
-  let overrides: GuardOverrides | null = (channel.guardOverrides as GuardOverrides | null) ?? null;
-  const frozen = snapshot?.channels.find((c) => c.id === String(channelId));
-  if (frozen) {
-    overrides = frozen.guardOverrides ?? null;
-    const frozenRecipe = snapshot!.guards.find((g) => g.id === frozen.guardRecipeId);
-    if (frozenRecipe) guard = applyGuardOverrides(frozenRecipe.guard, overrides).guard;
-  } else if (recipe) {
-    guard = applyGuardOverrides(recipe.guard as Guard, overrides).guard;
-  }
-  const settings = snapshot?.settings ?? (await buildProjectSnapshot(projectId)).settings;
+  const { guard, overrides, settings } = await auditedGuard(projectId, runId, channel, recipe);
   const conditions = conditionsOf(settings);
 
   const stored = runId !== null ? await runFindings(runId, { channelId }) : [];
@@ -242,7 +278,8 @@ export interface StripOverlay {
   /** Per channel on the strip: worst verdict and the finding that decides it. */
   channels: { channelId: number; tag: string; verdict: Verdict; reason: string }[];
   checks: CheckFinding[];
-  proposal: ResequenceProposal | null;
+  /** The re-sequencing proposal for the strip as it stands, with what applying it needs (fingerprint, versions). */
+  proposal: ResequenceView | null;
   proposalError: string | null;
 }
 
@@ -298,11 +335,10 @@ export async function getStripOverlay(user: ActingUser, projectId: number, strip
   }
 
   // The proposal from the schedule as it stands (what "Apply" would change).
-  let proposal: ResequenceProposal | null = null;
+  let proposal: ResequenceView | null = null;
   let proposalError: string | null = null;
   try {
-    const snapshot = await buildProjectSnapshot(projectId);
-    proposal = proposeResequence(snapshot.terminals.filter((t) => t.stripId === String(stripId)));
+    proposal = await proposeForStrip(projectId, stripId);
   } catch (err) {
     proposalError = err instanceof Error ? err.message : String(err);
   }
