@@ -52,6 +52,20 @@ describe('versioned updates', () => {
     expect(await snapshot()).toEqual(before);
   });
 
+  it('two saves of the same version at the same moment: one is saved, the other gets 409 (never a server error)', async () => {
+    const id = w.terminalIds[1];
+    const read = await terminalRow(id);
+    const results = await Promise.all(
+      ['first', 'second'].map((notes) =>
+        call(terminal.PATCH, { method: 'PATCH', params: { ...p, terminalId: id }, body: { version: read.version, notes } }),
+      ),
+    );
+    expect(results.map((r) => r.status).sort()).toEqual([200, 409]);
+    const saved = results.find((r) => r.status === 200)!.body;
+    expect((await terminalRow(id)).notes).toBe(saved.notes);
+    expect(results.find((r) => r.status === 409)!.body.current).toMatchObject({ notes: saved.notes, version: read.version + 1 });
+  });
+
   it('a stale cabinet, strip, channel or recipe update is refused the same way', async () => {
     const staleCabinet = await call(cabinet.PATCH, { method: 'PATCH', params: { ...p, cabinetId: w.cabinetId }, body: { version: 7, name: 'x' } });
     expect(staleCabinet.status).toBe(409);

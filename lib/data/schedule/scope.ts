@@ -2,7 +2,7 @@
  * Finding schedule records inside one project. A record that exists in another project is
  * answered exactly like one that does not exist (404), so ids reveal nothing across projects.
  */
-import type { Transaction } from 'sequelize';
+import { Transaction } from 'sequelize';
 import { getDb, type Cabinet, type Channel, type GuardRecipe, type Strip, type Terminal } from '@/lib/db';
 import { NotFoundError } from '@/lib/errors';
 
@@ -64,8 +64,35 @@ export async function findGuardRecipe(projectId: number, recipeId: number, trans
   return recipe;
 }
 
-/** Runs `fn` in one transaction: everything it writes (records and their log entries) lands together or not at all. */
+let sqliteWrites: Promise<unknown> = Promise.resolve();
+const BUSY_RETRIES = 5;
+
+function isBusy(err: unknown): boolean {
+  return /SQLITE_BUSY/.test(String((err as Error | undefined)?.message));
+}
+
+/**
+ * Runs `fn` in one transaction: everything it writes (records and their log entries) lands
+ * together or not at all. On SQLite, which takes one writer at a time and (without a busy
+ * timeout) fails a second one at once with SQLITE_BUSY, this process's schedule writes are
+ * queued, begin IMMEDIATE (the write lock is taken up front, so two editors cannot both read
+ * and then deadlock on the upgrade), and are retried a few times when another module holds
+ * the lock; `fn` re-reads everything it needs, so a retry is safe.
+ */
 export async function inTransaction<T>(fn: (transaction: Transaction) => Promise<T>): Promise<T> {
   const { sequelize } = getDb();
-  return sequelize.transaction(fn);
+  if (sequelize.getDialect() !== 'sqlite') return sequelize.transaction(fn);
+  const attempt = async (): Promise<T> => {
+    for (let tries = 0; ; tries += 1) {
+      try {
+        return await sequelize.transaction({ type: Transaction.TYPES.IMMEDIATE }, fn);
+      } catch (err) {
+        if (!isBusy(err) || tries >= BUSY_RETRIES) throw err;
+        await new Promise((resolve) => setTimeout(resolve, 40 * (tries + 1)));
+      }
+    }
+  };
+  const run = sqliteWrites.then(attempt, attempt);
+  sqliteWrites = run.catch(() => undefined);
+  return run;
 }
