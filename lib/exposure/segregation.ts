@@ -12,7 +12,7 @@ const ELV_AC_MAX = 50; // V rms, IEC 60449 band I (memory)
 const ELV_DC_MAX = 120; // V ripple-free, IEC 60449 band I (memory)
 
 export const SEGREGATION_CLAUSE =
-  'IEC 60204-1 13.1.3 (memory); NEC 300.3(C)(1); terminal-strip practice: group by voltage class with a partition plate between groups (common practice)';
+  'IEC 60204-1 13.1.3 (memory); NEC 300.3(C)(1) (memory); terminal-strip practice: group by voltage class with a partition plate between groups (common practice)';
 
 /** The band a terminal belongs to, or null for earth, spare, barrier and unknown hazards. */
 export function voltageBand(t: TerminalSnapshot): VoltageBand | null {
