@@ -10,7 +10,7 @@ import { dcSupply, input, mainsLine, term } from './fixtures';
 const strips: StripSnapshot[] = [{ id: 'X1', cabinetId: 'C1', tag: 'X1' }];
 
 describe('segregation check', () => {
-  // IEC 60204-1 13.1.3 (memory) and NEC 300.3(C)(1): circuits of different voltage may share
+  // IEC 60204-1 13.1.3 (memory) and NEC 300.3(C)(1) (memory): circuits of different voltage may share
   // only when insulated for the highest voltage or separated by a barrier; on a strip the
   // practice is voltage groups with a partition plate between them (common practice).
   it('mains next to 24 V inputs with no barrier is one finding, with its clause', () => {
