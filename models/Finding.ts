@@ -25,7 +25,7 @@ export class Finding extends Model<InferAttributes<Finding>, InferCreationAttrib
   declare auditRunId: number;
   declare channelId: number | null;
   declare kind: FindingKind;
-  /** 'dc' | 'ac' | 'surge' | 'esd' for stress findings. */
+  /** The audit's case id for stress findings (e.g. 'mains-line:line-earth', a surge or ESD case). */
   declare stressCase: string | null;
   declare mechanism: ExposureMechanism | null;
   declare hazardTerminalId: number | null;
@@ -51,11 +51,7 @@ export class Finding extends Model<InferAttributes<Finding>, InferCreationAttrib
           allowNull: false,
           validate: oneOf('kind', FINDING_KINDS),
         },
-        stressCase: {
-          type: DataTypes.STRING(20),
-          allowNull: true,
-          validate: oneOf('stressCase', STRESS_CASE_KINDS),
-        },
+        stressCase: { type: DataTypes.STRING(60), allowNull: true },
         mechanism: {
           type: DataTypes.STRING(20),
           allowNull: true,
@@ -71,7 +67,7 @@ export class Finding extends Model<InferAttributes<Finding>, InferCreationAttrib
         margin: { type: DataTypes.DOUBLE, allowNull: true },
         figures: { type: DataTypes.JSON, allowNull: true },
         key: {
-          type: DataTypes.STRING(200),
+          type: DataTypes.STRING(255),
           allowNull: false,
           validate: { notEmpty: { msg: 'key must not be empty.' } },
         },
