@@ -59,6 +59,40 @@ export function checkScheduleFile(name: string, bytes: Uint8Array): ScheduleFile
   return extension as ScheduleFileKind;
 }
 
+/** A schedule workbook unpacks to a few MB at most; far more is a wrong file or a zip bomb. */
+export const MAX_XLSX_UNPACKED_BYTES = 100 * 1024 * 1024;
+
+/**
+ * Total uncompressed size of a zip archive's entries, from its central directory (PKWARE
+ * APPNOTE 4.3.12/4.3.16), read before anything is inflated. null when the directory cannot be
+ * found or uses ZIP64 (sizes of 4 GiB and over): treated as too large.
+ */
+export function zipUnpackedSize(bytes: Uint8Array): number | null {
+  const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+  const EOCD = 0x06054b50;
+  const CENTRAL = 0x02014b50;
+  let eocd = -1;
+  // The end record is 22 bytes plus a comment of at most 65535 bytes.
+  for (let i = bytes.byteLength - 22; i >= Math.max(0, bytes.byteLength - 22 - 65535); i -= 1) {
+    if (view.getUint32(i, true) === EOCD) {
+      eocd = i;
+      break;
+    }
+  }
+  if (eocd < 0) return null;
+  const entries = view.getUint16(eocd + 10, true);
+  let offset = view.getUint32(eocd + 16, true);
+  let total = 0;
+  for (let n = 0; n < entries; n += 1) {
+    if (offset + 46 > bytes.byteLength || view.getUint32(offset, true) !== CENTRAL) return null;
+    const size = view.getUint32(offset + 24, true);
+    if (size === 0xffffffff) return null;
+    total += size;
+    offset += 46 + view.getUint16(offset + 28, true) + view.getUint16(offset + 30, true) + view.getUint16(offset + 32, true);
+  }
+  return total;
+}
+
 function cellsToTable(kind: ScheduleFileKind, records: { row: number; cells: string[] }[]): ScheduleTable {
   const [head, ...body] = records;
   if (!head) refuse('The file has no header row: the first row must name the columns.');
@@ -101,6 +135,11 @@ function cellText(value: ExcelJS.CellValue): string {
 }
 
 export async function readXlsx(bytes: Uint8Array): Promise<ScheduleTable> {
+  const unpacked = zipUnpackedSize(bytes);
+  if (unpacked === null) refuse('The workbook could not be read (its zip directory is missing or damaged). Save it again as .xlsx.');
+  if (unpacked > MAX_XLSX_UNPACKED_BYTES) {
+    refuse(`The workbook unpacks to ${megabytes(unpacked)}, far more than a schedule needs (limit ${megabytes(MAX_XLSX_UNPACKED_BYTES)}).`);
+  }
   const workbook = new ExcelJS.Workbook();
   try {
     await workbook.xlsx.load(bytes as unknown as ExcelJS.Buffer);

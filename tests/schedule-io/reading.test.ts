@@ -17,6 +17,7 @@ import {
   toExportRows,
   writeCsv,
   writeXlsx,
+  zipUnpackedSize,
 } from '@/lib/schedule-io';
 
 const text = (s: string) => new TextEncoder().encode(s);
@@ -56,6 +57,25 @@ describe('upload checks: extension and content must agree', () => {
     expect(messageOf(() => checkScheduleFile('big.csv', big))).toMatch(/"big.csv" is 5\.0 MB; the import limit is 5 MB/);
     // Exactly at the limit passes the size check.
     expect(checkScheduleFile('edge.csv', new Uint8Array(MAX_IMPORT_BYTES).fill(0x61))).toBe('csv');
+  });
+
+  it('refuses a workbook that would unpack to more than 100 MB, before unpacking it', async () => {
+    const workbook = new ExcelJS.Workbook();
+    workbook.addWorksheet('S').addRow(['strip', 'position', 'label', 'circuit_class']);
+    const bytes = new Uint8Array((await workbook.xlsx.writeBuffer()) as ArrayBuffer);
+    const honest = zipUnpackedSize(bytes)!;
+    expect(honest).toBeGreaterThan(0);
+    expect(honest).toBeLessThan(1024 * 1024);
+    // Claim 200 MB for the first entry in the central directory (PKWARE APPNOTE 4.3.12: signature
+    // 0x02014b50, uncompressed size at offset 24), as a zip bomb's directory would.
+    const view = new DataView(bytes.buffer);
+    let at = bytes.length - 22;
+    while (view.getUint32(at, true) !== 0x06054b50) at -= 1;
+    const firstEntry = view.getUint32(at + 16, true);
+    expect(view.getUint32(firstEntry, true)).toBe(0x02014b50);
+    view.setUint32(firstEntry + 24, 200 * 1024 * 1024, true);
+    expect(zipUnpackedSize(bytes)).toBeGreaterThan(200 * 1024 * 1024);
+    await expect(readScheduleFile('bomb.xlsx', bytes)).rejects.toThrow(/unpacks to 200\.\d MB/);
   });
 
   it('refuses a CSV that is not UTF-8', async () => {
