@@ -1,8 +1,7 @@
 import { Op, type WhereOptions } from 'sequelize';
-import { diffAudits, diffSnapshots, runAuditWith, snapshotHash, type SnapshotChange } from '@/lib/audit';
+import { diffAudits, diffSnapshots, runAudit, snapshotHash, type SnapshotChange } from '@/lib/audit';
 import type { AuditProgress, AuditResult, AuditSummary, ChannelAudit, Finding, ProjectSnapshot } from '@/lib/audit/types';
 import type { CheckFinding } from '@/lib/exposure/types';
-import { solveStress } from '@/lib/stress';
 import type { Verdict } from '@/lib/stress/types';
 import type { ProjectActor } from '@/lib/auth/guard';
 import { getDb } from '@/lib/db';
@@ -130,7 +129,7 @@ export async function runProjectAudit(
   });
 
   try {
-    const result = runAuditWith(snapshot, solveStress, { onProgress });
+    const result = runAudit(snapshot, { onProgress });
     const before = previous ? await loadRunResult(previous.id) : null;
     const delta = deltaKeys(previous?.id ?? null, before ? diffAudits(before, result) : null);
 
