@@ -319,3 +319,71 @@ describe('create, update, delete round trip with the audit trail', () => {
     }
   });
 });
+
+describe('strips, moves and channel links', () => {
+  it('a new strip goes after the last one unless an order is given; the list follows the order', async () => {
+    const other = await call(cabinets.POST, { params: p, body: { tag: '+BH4', name: 'Ash handling' } });
+    const cid = other.body.id;
+    await call(strips.POST, { params: { ...p, cabinetId: cid }, body: { tag: 'X10' } });
+    await call(strips.POST, { params: { ...p, cabinetId: cid }, body: { tag: 'X11' } });
+    const first = await call(strips.POST, { params: { ...p, cabinetId: cid }, body: { tag: 'X9', order: 0 } });
+    expect(first.status).toBe(201);
+    const list = await call(strips.GET, { method: 'GET', params: { ...p, cabinetId: cid } });
+    // By order, then by tag as text ("X10" before "X9").
+    expect(list.body.items.map((s: { tag: string; order: number }) => [s.tag, s.order])).toEqual([
+      ['X10', 0],
+      ['X9', 0],
+      ['X11', 1],
+    ]);
+    const renamed = await call(strip.PATCH, { method: 'PATCH', params: { ...p, stripId: first.body.id }, body: { version: 0, order: 5, name: 'Spare rail' } });
+    expect(renamed.body).toMatchObject({ order: 5, name: 'Spare rail', version: 1, terminalCount: 0 });
+    const dupTag = await call(strip.PATCH, { method: 'PATCH', params: { ...p, stripId: first.body.id }, body: { version: 1, tag: 'X10' } });
+    expect(dupTag.status).toBe(422);
+    expect(dupTag.body.fieldErrors.tag[0]).toMatch(/already used by another strip/);
+    const gone = await call(strip.DELETE, { method: 'DELETE', params: { ...p, stripId: first.body.id }, query: { version: 1 } });
+    expect(gone.body).toEqual({ deleted: true });
+  });
+
+  it('a terminal moves to another strip of its cabinet, never to another cabinet', async () => {
+    const x3 = await call(strips.POST, { params: { ...p, cabinetId: w.cabinetId }, body: { tag: 'X3' } });
+    const t = await terminalRow(w.terminalIds[1]);
+    const moved = await call(terminal.PATCH, { method: 'PATCH', params: { ...p, terminalId: t.id }, body: { version: t.version, stripId: x3.body.id, position: 1, label: 'X3:1' } });
+    expect(moved.status).toBe(200);
+    expect(moved.body).toMatchObject({ stripTag: 'X3', position: 1, label: 'X3:1' });
+    const elsewhere = (await call(cabinets.GET, { method: 'GET', params: p })).body.items.find((c: { tag: string }) => c.tag === '+BH4');
+    const foreignStrip = (await call(strips.GET, { method: 'GET', params: { ...p, cabinetId: elsewhere.id } })).body.items[0];
+    const before = await snapshot();
+    const refused = await call(terminal.PATCH, { method: 'PATCH', params: { ...p, terminalId: t.id }, body: { version: moved.body.version, stripId: foreignStrip.id } });
+    expect(refused.status).toBe(422);
+    expect(refused.body.fieldErrors.stripId[0]).toMatch(/another cabinet; a terminal moves only within its cabinet/);
+    expect(await snapshot()).toEqual(before);
+  });
+
+  it("changing a channel's signal terminal moves the schedule's channel mark with it", async () => {
+    const ch = (await call(channels.GET, { method: 'GET', params: p, query: { cabinetId: w.cabinetId } })).body.items.find(
+      (c: { tag: string }) => c.tag === 'LS-101',
+    );
+    const oldSignal = ch.signalTerminalId;
+    const spare = await call(terminals.POST, { params: p, body: { stripId: w.stripId, position: 20, label: 'X2:20', circuitClass: 'sensitive' } });
+    const res = await call(channel.PATCH, { method: 'PATCH', params: { ...p, channelId: ch.id }, body: { version: ch.version, signalTerminalId: spare.body.id } });
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ signalTerminalLabel: 'X2:20', returnTerminalLabel: ch.returnTerminalLabel });
+    expect((await terminalRow(spare.body.id)).channelTag).toBe('LS-101');
+    expect((await terminalRow(oldSignal)).channelTag).toBeNull();
+    const same = await call(channel.PATCH, { method: 'PATCH', params: { ...p, channelId: ch.id }, body: { version: res.body.version, returnTerminalId: spare.body.id } });
+    expect(same.status).toBe(422);
+    expect(same.body.fieldErrors.returnTerminalId[0]).toMatch(/different terminal/);
+    const foreign = await call(channel.PATCH, { method: 'PATCH', params: { ...p, channelId: ch.id }, body: { version: res.body.version, returnTerminalId: w.other.terminalId } });
+    expect(foreign.status).toBe(422);
+    expect(foreign.body.fieldErrors.returnTerminalId[0]).toMatch(/not a terminal of this channel's cabinet/);
+  });
+
+  it('a cabinet update is saved, versioned and logged with the change', async () => {
+    const { models } = getDb();
+    const c = (await call(cabinet.GET, { method: 'GET', params: { ...p, cabinetId: w.cabinetId } })).body;
+    const res = await call(cabinet.PATCH, { method: 'PATCH', params: { ...p, cabinetId: w.cabinetId }, body: { version: c.version, location: 'Boiler house, east wall' } });
+    expect(res.body).toMatchObject({ location: 'Boiler house, east wall', name: c.name, version: c.version + 1 });
+    const entry = await models.AuditLog.findOne({ where: { action: 'cabinet.update', entityId: w.cabinetId }, order: [['id', 'DESC']] });
+    expect(entry?.detail).toEqual({ changes: { location: [null, 'Boiler house, east wall'] } });
+  });
+});
