@@ -1,4 +1,4 @@
-import type { Sequelize } from 'sequelize';
+import type { InferAttributes, Sequelize } from 'sequelize';
 import { Attachment } from './Attachment';
 import { AuditLog } from './AuditLog';
 import { AuditRun } from './AuditRun';
@@ -58,11 +58,29 @@ export const models = {
 } as const;
 export type Models = typeof models;
 
-/** Plain attribute types of every model, derived from the classes (never retyped). */
+/** Generic forms: Attributes<Terminal>, CreationAttributes<Terminal>. */
 export type {
   InferAttributes as Attributes,
   InferCreationAttributes as CreationAttributes,
 } from 'sequelize';
+
+/** Plain attribute types, derived from the model classes (never retyped by hand). */
+export type UserAttributes = InferAttributes<User>;
+export type ProjectMemberAttributes = InferAttributes<ProjectMember>;
+export type InvitationAttributes = InferAttributes<Invitation>;
+export type ProjectAttributes = InferAttributes<Project>;
+export type CabinetAttributes = InferAttributes<Cabinet>;
+export type StripAttributes = InferAttributes<Strip>;
+export type TerminalAttributes = InferAttributes<Terminal>;
+export type ChannelAttributes = InferAttributes<Channel>;
+export type GuardRecipeAttributes = InferAttributes<GuardRecipe>;
+export type AuditRunAttributes = InferAttributes<AuditRun>;
+export type FindingAttributes = InferAttributes<Finding>;
+export type DecisionAttributes = InferAttributes<Decision>;
+export type MarkupAttributes = InferAttributes<Markup>;
+export type AttachmentAttributes = InferAttributes<Attachment>;
+export type AuditLogAttributes = InferAttributes<AuditLog>;
+export type OutboxMessageAttributes = InferAttributes<OutboxMessage>;
 
 function associate(): void {
   User.hasMany(ProjectMember, { foreignKey: 'userId', as: 'memberships' });

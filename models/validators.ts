@@ -10,9 +10,6 @@ export function oneOf(field: string, values: readonly string[]): ModelValidateOp
   };
 }
 
-/** Like oneOf, but null is allowed (Sequelize skips validators on null when allowNull). */
-export const oneOfOrNull = oneOf;
-
 export function isPlainObject(value: unknown): value is Record<string, unknown> {
   return typeof value === 'object' && value !== null && !Array.isArray(value);
 }
