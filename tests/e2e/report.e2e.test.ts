@@ -1,0 +1,167 @@
+/**
+ * The risk report as the demo engineer, safety lead and owner use it: run the audit and watch
+ * its progress, find the worst channel and its one-line reason, open its page and its plots,
+ * try a suggested resistor in "what if" and see the channel hold; roles that may not run see
+ * no Run button; the findings table and the plots work with the keyboard.
+ */
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { DEMO_PASSWORD, DEMO_USERS } from '@/seeders/demo-scenario';
+import { BASE_URL, launch, shot, signIn } from './browser';
+
+const PROJECT_NAME = 'Evaporator line 2 controls upgrade';
+const email = (role: string) => DEMO_USERS.find((u) => u.demoRole === role)!.email;
+
+let browser: Browser;
+let projectPath = '';
+
+beforeAll(async () => {
+  browser = await launch();
+});
+afterAll(async () => browser?.close());
+
+async function openAs(role: string, width = 1440, height = 900): Promise<Page> {
+  const page = await browser.newPage({ viewport: { width, height } });
+  await signIn(page, email(role), DEMO_PASSWORD);
+  await page.waitForURL(/\/projects$/, { timeout: 60_000 });
+  if (!projectPath) {
+    await page.getByText(PROJECT_NAME).click();
+    await page.waitForURL(/\/projects\/\d+$/);
+    projectPath = new URL(page.url()).pathname;
+  }
+  return page;
+}
+
+describe('risk report', () => {
+  it('the engineer runs the audit, sees its progress, and finds the worst channel with its reason', async () => {
+    const page = await openAs('engineer');
+    await page.goto(`${BASE_URL()}${projectPath}/audit`);
+    await page.getByRole('button', { name: 'Run audit' }).click();
+    // The progress bar shows a phase while the run streams its lines.
+    const bar = page.getByRole('progressbar', { name: 'Audit progress' });
+    await bar.waitFor();
+    await expect(page.getByTestId('run-phase').textContent()).resolves.toMatch(/Reading|Mapping|Solving|Checking|Saving|stored/);
+    await page.getByText(/Audit run #\d+ stored\./).waitFor({ timeout: 60_000 });
+    await expect(bar.getAttribute('aria-valuenow')).resolves.toBe('100');
+    // The page refreshes with the run's findings, worst (smallest margin) first.
+    await page.getByRole('table', { name: 'Findings' }).waitFor();
+    await shot(page, 'report-findings-1440');
+
+    const firstRow = page.locator('table[aria-label="Findings"] tbody tr').first();
+    const verdict = await firstRow.getAttribute('data-verdict');
+    expect(['unprotected', 'fails']).toContain(verdict);
+    const reason = (await firstRow.locator('td').last().textContent())!.trim();
+    expect(reason.length).toBeGreaterThan(20);
+    const tag = (await firstRow.locator('[data-finding-link]').textContent())!.trim();
+
+    await firstRow.locator('[data-finding-link]').click();
+    await page.waitForURL(/\/audit\/channels\/\d+/);
+    await expect(page.getByRole('heading', { level: 2 }).first().textContent()).resolves.toContain(tag);
+    // The one-line reason on the channel page is the engine's sentence for its worst case.
+    await expect(page.getByTestId('channel-reason').textContent()).resolves.toContain(reason.replace(/^(new|changed)\s*/, '').slice(0, 40));
+    await expect(page.getByRole('note', { name: 'Safety caution' }).first().isVisible()).resolves.toBe(true);
+
+    // A surge case of this channel, with its plots.
+    await page.getByRole('navigation', { name: 'Stress cases of this channel' }).getByRole('link', { name: /Surge \+/ }).first().click();
+    await page.waitForURL(/case=[^&#]*surge/);
+    const voltagePlot = page.getByTestId('plot-V').locator('svg[role="img"]');
+    await expect.poll(() => voltagePlot.getAttribute('aria-label'), { timeout: 30_000 }).toMatch(/Voltage during the surge/);
+    await expect(page.getByTestId('plot-A').locator('svg[role="img"]').isVisible()).resolves.toBe(true);
+    // Keyboard: focus the plot and step along the time axis.
+    await voltagePlot.focus();
+    await page.keyboard.press('ArrowRight');
+    await page.keyboard.press('ArrowRight');
+    await expect(page.getByTestId('plot-V').locator('p[aria-live]').textContent()).resolves.toMatch(/^t = .*s:/);
+    await shot(page, 'report-channel-worst-1440');
+    await page.close();
+  });
+
+  it('a suggested resistor tried in "what if" makes the channel hold, and nothing is saved', async () => {
+    const page = await openAs('engineer');
+    // FT-2108 (demo data): a multi-stage 4–20 mA guard whose 200 Ω series resistor is too small.
+    const runsRes = await page.request.get(`${BASE_URL()}/api${projectPath}/audits`);
+    expect(runsRes.status()).toBe(200);
+    const runs = (await runsRes.json()) as { items: { id: number; isLatest: boolean }[] };
+    const runId = runs.items.find((r) => r.isLatest)!.id;
+    const list = (await (await page.request.get(`${BASE_URL()}/api${projectPath}/audits/${runId}/findings?pageSize=2000`)).json()) as {
+      items: { channelId: number | null; channelTag: string | null }[];
+    };
+    const channelId = list.items.find((f) => f.channelTag === 'FT-2108')!.channelId!;
+    await page.goto(`${BASE_URL()}${projectPath}/audit/channels/${channelId}`);
+    const before = await page.locator('header [data-verdict]').first().getAttribute('data-verdict');
+    expect(before).not.toBe('holds');
+
+    const suggestion = page.getByRole('button', { name: /What if: R1 resistance/ });
+    await suggestion.waitFor({ timeout: 60_000 });
+    await suggestion.click();
+    const outcome = page.getByTestId('what-if-verdict');
+    await outcome.waitFor();
+    await expect(outcome.locator('[data-verdict]').last().getAttribute('data-verdict')).resolves.toBe('holds');
+    await shot(page, 'report-what-if-1440');
+
+    // Not saved: the page, loaded again, still shows the audited verdict.
+    await page.reload();
+    await expect(page.locator('header [data-verdict]').first().getAttribute('data-verdict')).resolves.toBe(before);
+    await page.close();
+  });
+
+  it('the findings table works with Tab and Enter, and filters live in the URL', async () => {
+    const page = await openAs('engineer');
+    await page.goto(`${BASE_URL()}${projectPath}/audit?verdict=fails&case=surge`);
+    const rows = page.locator('table[aria-label="Findings"] tbody tr');
+    await rows.first().waitFor();
+    for (const v of await rows.evaluateAll((trs) => trs.map((tr) => tr.getAttribute('data-verdict')))) expect(v).toBe('fails');
+    // Tab from the top of the page until a finding's link has focus, then Enter opens it.
+    let reached = false;
+    for (let k = 0; k < 80 && !reached; k++) {
+      await page.keyboard.press('Tab');
+      reached = await page.evaluate(() => document.activeElement?.hasAttribute('data-finding-link') ?? false);
+    }
+    expect(reached).toBe(true);
+    await page.keyboard.press('Enter');
+    await page.waitForURL(/\/audit\/channels\/\d+\?case=/);
+    await page.close();
+  });
+
+  it('screens are laid out for 1024×768 too', async () => {
+    const page = await openAs('engineer', 1024, 768);
+    await page.goto(`${BASE_URL()}${projectPath}`);
+    await page.getByTestId('worst-channels').waitFor();
+    await shot(page, 'report-overview-1024');
+    await page.goto(`${BASE_URL()}${projectPath}/audit`);
+    await page.getByRole('table', { name: 'Findings' }).waitFor();
+    await shot(page, 'report-findings-1024');
+    await page.locator('[data-finding-link]').first().click();
+    await page.waitForURL(/\/audit\/channels\/\d+/);
+    await page.getByRole('navigation', { name: 'Stress cases of this channel' }).getByRole('link', { name: /ESD \+/ }).first().click();
+    await page.getByTestId('plot-A').waitFor();
+    await shot(page, 'report-channel-1024');
+    // The plot's drawing is not wider than its column at this size.
+    const box = await page.getByTestId('plot-A').locator('svg[role="img"]').boundingBox();
+    expect(box!.width).toBeLessThanOrEqual(1024);
+    expect(box!.width).toBeGreaterThan(500);
+    await page.getByRole('link', { name: /^Strip .*re-sequencing/ }).first().click();
+    await page.waitForURL(/\/audit\/strips\/\d+/);
+    await page.getByRole('heading', { name: /Re-sequencing proposal/i }).waitFor();
+    await shot(page, 'report-strip-1024');
+    await page.close();
+  });
+
+  for (const role of ['reviewer', 'viewer'] as const) {
+    it(`a ${role} reads the report but sees no Run button and no Apply`, async () => {
+      const page = await openAs(role);
+      await page.goto(`${BASE_URL()}${projectPath}/audit`);
+      await page.getByRole('table', { name: 'Findings' }).waitFor();
+      await expect(page.getByRole('button', { name: 'Run audit' }).count()).resolves.toBe(0);
+      const res = await page.request.post(`${BASE_URL()}/api${projectPath}/audits`, { data: {} });
+      expect(res.status()).toBe(403);
+      await page.locator('[data-finding-link]').first().click();
+      await page.waitForURL(/\/audit\/channels\/\d+/);
+      await page.getByRole('link', { name: /^Strip .*re-sequencing/ }).first().click();
+      await page.waitForURL(/\/audit\/strips\/\d+/);
+      await expect(page.getByRole('button', { name: /Apply this order/ }).count()).resolves.toBe(0);
+      await shot(page, `report-strip-${role}-1440`);
+      await page.close();
+    });
+  }
+});
