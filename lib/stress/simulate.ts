@@ -26,12 +26,12 @@ import {
   SURGE_GENERATOR_IMPEDANCE,
   SURGE_PEAK_TIME,
   SURGE_SPAN,
-  surgeLevelWeights,
+  surgeWeightsFor,
   surgeOpenCircuitVoltage,
 } from './waveforms';
 
 /** Intervals of the charge-voltage quadrature for ESD into a static network. */
-const ESD_STATIC_INTERVALS = 40;
+const ESD_STATIC_INTERVALS = 24;
 
 /**
  * ESD into a network without capacitors: the only state is the generator capacitor's voltage
@@ -56,7 +56,7 @@ function esdStatic(solver: LadderSolver, recorder: Recorder, charge: number): vo
   const rTip = ESD_TIP_RESISTANCE;
   solver.solve(charge, rBody);
   const equilibrium = solver.terminalVoltage;
-  const tipNodes = 10;
+  const tipNodes = 6;
   let tipTime = 0;
   const combinedR = 1 / (1 / rBody + 1 / rTip);
   for (let j = tipNodes; j >= 1; j--) {
@@ -73,10 +73,12 @@ function esdStatic(solver: LadderSolver, recorder: Recorder, charge: number): vo
   solver.solve(charge, rBody);
   recorder.record(0, charge, rBody, -tipTime);
 
-  // Body: Vc from the full charge down to 0 on knee-refined nodes, weight = C·w/|i|; the
+  // Body: Vc from the full charge down to 0 on knee-refined nodes, weight = C·w/|i| with w the
+  // quadrature weight in Vc (Simpson on smooth triples, trapezoid around the knees); the
   // charge the tip still holds at Vt* discharges with the body, so it joins the body's C.
   const bodyCapacitance = ESD_CAPACITANCE + (charge !== 0 ? ESD_TIP_CAPACITANCE * (equilibrium / charge) : 0);
-  const nodes = esdNodes(solver.net, charge);
+  const { nodes, smooth } = esdNodes(solver.net, charge);
+  const w = quadratureWeights(nodes.map(Math.abs), smooth);
   let peak = 0;
   let duration = 0;
   for (let j = nodes.length - 1; j >= 0; j--) {
@@ -84,14 +86,40 @@ function esdStatic(solver: LadderSolver, recorder: Recorder, charge: number): vo
     solver.solve(vc, rBody);
     const i = Math.abs(solver.sourceCurrent);
     if (j === nodes.length - 1) peak = i;
-    const left = j > 0 ? Math.abs(vc - nodes[j - 1]) : 0;
-    const right = j < nodes.length - 1 ? Math.abs(nodes[j + 1] - vc) : 0;
-    const w = 0.5 * (left + right);
-    const weight = i > 1e-9 * peak ? (bodyCapacitance * w) / i : 0;
+    const weight = i > 1e-9 * peak ? (bodyCapacitance * w[j]) / i : 0;
     duration += weight;
     recorder.record(0, vc, rBody, weight);
   }
   recorder.sim.duration = duration;
+}
+
+const SURGE_BASE_LEVELS = 16;
+
+/** Normalised surge levels in [0, 1]: Chebyshev–Lobatto spacing plus knee clusters (not smooth). */
+function surgeLevels(net: CompiledNetwork, peak: number): { levels: number[]; smooth: boolean[] } {
+  const magnitude = Math.abs(peak);
+  const values: [number, boolean][] = [];
+  for (let j = 0; j <= SURGE_BASE_LEVELS; j++) values.push([0.5 - 0.5 * Math.cos((Math.PI * j) / SURGE_BASE_LEVELS), true]);
+  if (magnitude > 0) {
+    for (const knee of clampKnees(net, peak < 0 ? -1 : 1)) {
+      for (const f of ESD_KNEE_FACTORS) {
+        const u = (knee * f) / magnitude;
+        if (u > 0 && u < 1) values.push([u, false]);
+      }
+    }
+  }
+  values.sort((a, b) => a[0] - b[0]);
+  const levels: number[] = [];
+  const smooth: boolean[] = [];
+  for (const [v, isSmooth] of values) {
+    if (levels.length > 0 && v - levels[levels.length - 1] <= 1e-9) {
+      smooth[smooth.length - 1] = smooth[smooth.length - 1] && isSmooth;
+      continue;
+    }
+    levels.push(v);
+    smooth.push(isSmooth);
+  }
+  return { levels, smooth };
 }
 
 /**
@@ -99,28 +127,63 @@ function esdStatic(solver: LadderSolver, recorder: Recorder, charge: number): vo
  * 0 V), plus a cluster just above each clamp's knee, where the network's current changes
  * character and the integrand bends sharply. Sorted ascending in |Vc|, signed like `charge`.
  */
-function esdNodes(net: CompiledNetwork, charge: number): number[] {
+function esdNodes(net: CompiledNetwork, charge: number): { nodes: number[]; smooth: boolean[] } {
   const magnitude = Math.abs(charge);
   const sign = charge < 0 ? -1 : 1;
-  const values: number[] = [];
+  const values: [number, boolean][] = [];
   for (let j = 0; j <= ESD_STATIC_INTERVALS; j++) {
     const s = j / ESD_STATIC_INTERVALS;
-    values.push(magnitude * s * s * s);
+    values.push([magnitude * s * s * s, true]);
   }
   for (const knee of clampKnees(net, sign)) {
     if (!(knee > 0 && knee < magnitude)) continue;
     for (const f of ESD_KNEE_FACTORS) {
       const v = knee * f;
-      if (v > 0 && v < magnitude) values.push(v);
+      if (v > 0 && v < magnitude) values.push([v, false]);
     }
   }
-  values.sort((a, b) => a - b);
+  values.sort((a, b) => a[0] - b[0]);
   const nodes: number[] = [];
-  for (const v of values) if (nodes.length === 0 || v - nodes[nodes.length - 1] > 1e-9 * magnitude) nodes.push(sign * v);
-  return nodes;
+  const smooth: boolean[] = [];
+  for (const [v, isSmooth] of values) {
+    if (nodes.length > 0 && v - Math.abs(nodes[nodes.length - 1]) <= 1e-9 * magnitude) {
+      smooth[smooth.length - 1] = smooth[smooth.length - 1] && isSmooth;
+      continue;
+    }
+    nodes.push(sign * v);
+    smooth.push(isSmooth);
+  }
+  return { nodes, smooth };
 }
 
-const ESD_KNEE_FACTORS = [0.9, 0.97, 1, 1.01, 1.025, 1.05, 1.08, 1.12, 1.18, 1.27, 1.4, 1.6, 1.9, 2.4, 3.2];
+/**
+ * Quadrature weights on ascending nodes x: Simpson's rule (for unequal steps) on consecutive
+ * smooth triples, the trapezoid rule on intervals next to a non-smooth (knee) node.
+ */
+export function quadratureWeights(x: number[], smooth: boolean[]): Float64Array {
+  const n = x.length;
+  const w = new Float64Array(n);
+  let j = 0;
+  while (j + 1 < n) {
+    if (j + 2 < n && smooth[j] && smooth[j + 1] && smooth[j + 2]) {
+      const h1 = x[j + 1] - x[j];
+      const h2 = x[j + 2] - x[j + 1];
+      const total = h1 + h2;
+      w[j] += (total / 6) * (2 - h2 / h1);
+      w[j + 1] += (total * total * total) / (6 * h1 * h2);
+      w[j + 2] += (total / 6) * (2 - h1 / h2);
+      j += 2;
+    } else {
+      const h = x[j + 1] - x[j];
+      w[j] += h / 2;
+      w[j + 1] += h / 2;
+      j += 1;
+    }
+  }
+  return w;
+}
+
+const ESD_KNEE_FACTORS = [0.95, 1, 1.02, 1.05, 1.1, 1.2, 1.4, 1.8, 2.6];
 
 /** Node voltages (magnitude, for a source of the given sign) at which each clamp reaches ~0.1 mA. */
 function clampKnees(net: CompiledNetwork, sign: number): number[] {
@@ -189,7 +252,7 @@ export interface Simulation {
   notes: string[];
 }
 
-const DEFAULT_AC_QUARTER_SAMPLES = 16;
+const DEFAULT_AC_QUARTER_SAMPLES = 12;
 const MAX_SETTLE_CYCLES = 30;
 
 class Recorder {
@@ -610,12 +673,15 @@ export function simulate(net: CompiledNetwork, stressCase: StressCase, sign: 1 |
       const rs = SURGE_GENERATOR_IMPEDANCE + stressCase.couplingResistance;
       if (net.capacitorCount === 0 && !options.waveform && !options.trace && !options.forceTimeStepping) {
         // Static network: each quantity is a function of the source level u = v/peak only,
-        // so ∫ f(peak·s(t)) dt = Σ W_j f(peak·u_j) with the waveform's level weights W_j.
-        const { levels, weights, span } = surgeLevelWeights();
+        // so ∫ f(peak·s(t)) dt = Σ W_j f(peak·u_j) with the waveform's level weights W_j,
+        // on Chebyshev-spaced levels plus clusters just above each clamp's knee.
+        const { levels, smooth } = surgeLevels(net, peak);
+        const weights = surgeWeightsFor(levels, smooth);
         for (let j = 0; j < levels.length; j++) {
           solver.solve(peak * levels[j], rs);
           recorder.record(0, peak * levels[j], rs, weights[j]);
         }
+        const span = SURGE_SPAN;
         sim.duration = span;
         break;
       }

@@ -55,43 +55,101 @@ export const ESD_SOURCE_RESISTANCE_AT_ZERO = 1 / (1 / ESD_RESISTANCE + 1 / ESD_T
 
 /** Surge integration span: 8 tail time constants (the open-circuit voltage is then 0.03 % of peak). */
 export const SURGE_SPAN = 8 * SURGE_TAU_TAIL;
-const SURGE_LEVEL_COUNT = 40;
+const LEVEL_TABLE_SIZE = 4096;
 
-let cachedLevels: { levels: Float64Array; weights: Float64Array; span: number } | null = null;
+let levelTables: { g: Float64Array; h: Float64Array } | null = null;
+
+/** Time within [0, SURGE_SPAN] that the normalised shape spends at or above level u (0 < u ≤ 1). */
+function timeAbove(u: number): number {
+  if (u <= 0) return SURGE_SPAN;
+  if (u >= 1) return 0;
+  const shape = (t: number) => surgeOpenCircuitVoltage(t, 1);
+  let lo = 0;
+  let hi = SURGE_PEAK_TIME;
+  for (let k = 0; k < 64; k++) {
+    const mid = 0.5 * (lo + hi);
+    if (shape(mid) < u) lo = mid;
+    else hi = mid;
+  }
+  const rise = 0.5 * (lo + hi);
+  lo = SURGE_PEAK_TIME;
+  hi = 40 * SURGE_TAU_TAIL;
+  for (let k = 0; k < 64; k++) {
+    const mid = 0.5 * (lo + hi);
+    if (shape(mid) >= u) lo = mid;
+    else hi = mid;
+  }
+  return Math.min(0.5 * (lo + hi), SURGE_SPAN) - rise;
+}
+
+/** G(u) = ∫₀ᵘ T(v) dv and H(u) = ∫₀ᵘ v·T(v) dv on a fine uniform table, built once. */
+function levelIntegrals(): { g: Float64Array; h: Float64Array } {
+  if (levelTables) return levelTables;
+  const n = LEVEL_TABLE_SIZE;
+  const g = new Float64Array(n + 1);
+  const h = new Float64Array(n + 1);
+  let previous = timeAbove(0);
+  for (let k = 1; k <= n; k++) {
+    const u0 = (k - 1) / n;
+    const um = (k - 0.5) / n;
+    const u1 = k / n;
+    const mid = timeAbove(um);
+    const next = timeAbove(u1);
+    // Simpson on each cell
+    g[k] = g[k - 1] + ((previous + 4 * mid + next) / 6) / n;
+    h[k] = h[k - 1] + ((u0 * previous + 4 * um * mid + u1 * next) / 6) / n;
+    previous = next;
+  }
+  levelTables = { g, h };
+  return levelTables;
+}
+
+function tableAt(table: Float64Array, u: number): number {
+  const x = Math.min(Math.max(u, 0), 1) * LEVEL_TABLE_SIZE;
+  const k = Math.min(Math.floor(x), LEVEL_TABLE_SIZE - 1);
+  return table[k] + (x - k) * (table[k + 1] - table[k]);
+}
 
 /**
- * Level weights of the normalised 1.2/50 µs shape over [0, SURGE_SPAN]: W_j = ∫ φ_j(s(t)) dt
- * with φ_j the piecewise-linear hat functions on levels u_j (denser towards 0 and 1, where
- * the shape lingers or turns). Then ∫ f(s(t)) dt ≈ Σ W_j f(u_j) for any f that is smooth
- * between levels. Computed once, by a fine time integration (10⁵ steps per branch).
+ * Time weights for sampling a function of the normalised surge level at `levels` (ascending,
+ * from 0 to 1): ∫₀^span f(s(t)) dt ≈ Σ W_j f(u_j). By parts,
+ * ∫ f(s(t)) dt = f(0)·span + ∫₀¹ f′(u) T(u) du (T: time at or above u). f is interpolated by
+ * quadratics through consecutive level triples (a linear piece for a last odd interval), so
+ * f′ is linear on each piece and the integral needs only G = ∫T and H = ∫u·T. Any level set
+ * works: the solver adds levels at the clamps' knees and marks them not `smooth`, so the
+ * pieces around them are linear.
  */
-export function surgeLevelWeights(): { levels: Float64Array; weights: Float64Array; span: number } {
-  if (cachedLevels) return cachedLevels;
-  const m = SURGE_LEVEL_COUNT;
-  const levels = new Float64Array(m + 1);
-  for (let j = 0; j <= m; j++) levels[j] = 0.5 - 0.5 * Math.cos((Math.PI * j) / m); // Chebyshev–Lobatto spacing
-  const weights = new Float64Array(m + 1);
-  const shape = (t: number) => surgeOpenCircuitVoltage(t, 1);
-  const addSegment = (t0: number, t1: number, steps: number) => {
-    const dt = (t1 - t0) / steps;
-    for (let k = 0; k < steps; k++) {
-      const t = t0 + (k + 0.5) * dt; // midpoint rule
-      const u = Math.min(Math.max(shape(t), 0), 1);
-      // locate u between levels (binary search)
-      let lo = 0;
-      let hi = m;
-      while (hi - lo > 1) {
-        const mid = (lo + hi) >> 1;
-        if (levels[mid] <= u) lo = mid;
-        else hi = mid;
-      }
-      const frac = (u - levels[lo]) / (levels[hi] - levels[lo]);
-      weights[lo] += (1 - frac) * dt;
-      weights[hi] += frac * dt;
-    }
+export function surgeWeightsFor(levels: ArrayLike<number>, smooth?: ArrayLike<boolean>): Float64Array {
+  const { g, h } = levelIntegrals();
+  const n = levels.length;
+  const weights = new Float64Array(n);
+  weights[0] = SURGE_SPAN;
+  let j = 0;
+  const linear = (k: number) => {
+    const a = levels[k];
+    const c = levels[k + 1];
+    const slope = (tableAt(g, c) - tableAt(g, a)) / (c - a);
+    weights[k + 1] += slope;
+    weights[k] -= slope;
   };
-  addSegment(0, SURGE_PEAK_TIME, 100000);
-  addSegment(SURGE_PEAK_TIME, SURGE_SPAN, 100000);
-  cachedLevels = { levels, weights, span: SURGE_SPAN };
-  return cachedLevels;
+  while (j + 2 < n) {
+    // Across a clamp's knee f bends sharply: linear pieces there (the knee levels are dense).
+    if (smooth && !(smooth[j] && smooth[j + 1] && smooth[j + 2])) {
+      linear(j);
+      j += 1;
+      continue;
+    }
+    const a = levels[j];
+    const b = levels[j + 1];
+    const c = levels[j + 2];
+    const dG = tableAt(g, c) - tableAt(g, a);
+    const dH = tableAt(h, c) - tableAt(h, a);
+    // ∫ L′_k(u) T(u) du with L′_a = (2u − b − c)/((a − b)(a − c)), etc.
+    weights[j] += (2 * dH - (b + c) * dG) / ((a - b) * (a - c));
+    weights[j + 1] += (2 * dH - (a + c) * dG) / ((b - a) * (b - c));
+    weights[j + 2] += (2 * dH - (a + b) * dG) / ((c - a) * (c - b));
+    j += 2;
+  }
+  if (j + 1 < n) linear(j);
+  return weights;
 }
