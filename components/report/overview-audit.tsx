@@ -122,7 +122,7 @@ export function OverviewAudit({
               <dt className="text-muted">Review</dt>
               <dd>{REVIEW_LABEL[detail.run.reviewState] ?? detail.run.reviewState}</dd>
               <dt className="text-muted">Inputs</dt>
-              <dd>{stale ? 'changed since' : 'unchanged since'}</dd>
+              <dd>{stale ? 'the schedule or assumptions changed after this run' : 'unchanged since this run'}</dd>
             </dl>
           </Panel>
           <Panel>

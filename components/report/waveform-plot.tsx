@@ -66,8 +66,11 @@ export function WaveformPlot({
       if (v > hi) hi = v;
     }
     const yAxis = niceAxis(lo, hi, 5);
-    const x = linearScale(xAxis.min, xAxis.max, M.left, W - M.right);
-    const y = linearScale(yAxis.min, yAxis.max, H - M.bottom, M.top);
+    // Rounded to 0.01 unit: server and browser then print identical attributes (hydration).
+    const xs = linearScale(xAxis.min, xAxis.max, M.left, W - M.right);
+    const ys = linearScale(yAxis.min, yAxis.max, H - M.bottom, M.top);
+    const x = (v: number) => Math.round(xs(v) * 100) / 100;
+    const y = (v: number) => Math.round(ys(v) * 100) / 100;
     const paths = traces.map((tr) => {
       const d = decimate(t, tr.values, MAX_POINTS);
       return d.t.map((tt, k) => `${k === 0 ? 'M' : 'L'}${x(tt).toFixed(1)},${y(d.v[k]!).toFixed(1)}`).join('');

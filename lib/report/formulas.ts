@@ -108,7 +108,7 @@ function peakCurrentLine(guard: Guard, result: StressResult, waveform?: Waveform
     terms: [vpk, vnode, r, ipk],
     note:
       gap > HAND_TOLERANCE
-        ? `The hand form gives ${formatEng(hand, 'A')} (${(gap * 100).toFixed(0)} % from the engine's ${ipk.text}): the clamp voltage and the source peak do not occur at the same instant, or charge is stored in a capacitor; the engine integrates the whole waveform.`
+        ? `The hand form gives ${formatEng(hand, 'A')}, ${(gap * 100).toFixed(0)} % from the engine's ${ipk.text}: it takes the peaks as simultaneous and the source as a plain resistance, while the engine solves the case's waveform sample by sample. The engine's figure is the one judged.`
         : undefined,
   };
 }

@@ -164,4 +164,38 @@ describe('risk report', () => {
       await page.close();
     });
   }
+
+  it('the overview calls for a new audit when the schedule changed since the last run, and stops when it is back', async () => {
+    const page = await openAs('engineer', 1024, 768);
+    await page.goto(`${BASE_URL()}${projectPath}`);
+    await page.getByTestId('worst-channels').waitFor();
+    await expect(page.getByTestId('audit-cta').count()).resolves.toBe(0);
+
+    // A wire number edited through the schedule API is a change of the audited inputs.
+    const api = `${BASE_URL()}/api${projectPath}`;
+    const list = (await (await page.request.get(`${api}/audits`)).json()) as { items: { id: number; isLatest: boolean }[] };
+    const runId = list.items.find((r) => r.isLatest)!.id;
+    const findings = (await (await page.request.get(`${api}/audits/${runId}/findings?kind=stress&pageSize=1`)).json()) as {
+      items: { finding: { exposure: { targetTerminalId: string } | null } | null }[];
+    };
+    const any = findings.items[0]!.finding!;
+    const terminalId = any.exposure?.targetTerminalId ?? '1';
+    const before = (await (await page.request.get(`${api}/terminals/${terminalId}`)).json()) as { version: number; wireNumber: string | null };
+    const edited = await page.request.patch(`${api}/terminals/${terminalId}`, { data: { version: before.version, wireNumber: 'W-E2E-9' } });
+    expect(edited.status()).toBe(200);
+    await page.reload();
+    const cta = page.getByTestId('audit-cta');
+    await cta.waitFor();
+    await expect(cta.textContent()).resolves.toMatch(/changed after audit run #\d+/);
+    await expect(cta.getByRole('link', { name: 'Run the audit' }).isVisible()).resolves.toBe(true);
+    await shot(page, 'report-overview-stale-1024');
+
+    const after = (await edited.json()) as { version: number };
+    const restored = await page.request.patch(`${api}/terminals/${terminalId}`, { data: { version: after.version, wireNumber: before.wireNumber } });
+    expect(restored.status()).toBe(200);
+    await page.reload();
+    await page.getByTestId('worst-channels').waitFor();
+    await expect(page.getByTestId('audit-cta').count()).resolves.toBe(0);
+    await page.close();
+  });
 });

@@ -160,10 +160,24 @@ describe('channel page numbers equal the engine’s', () => {
     expect(line.note).toBeUndefined();
     expect(line.substituted).toMatch(new RegExp(`^\\|-${formatEng(253 * Math.SQRT2, 'V')} − \\(-[0-9.]+ m?V\\)\\| / ${formatEng(10e3 + 0.1, 'Ω')}$`));
     // Without the waveform the peaks do not coincide: the line says so instead of pretending.
-    expect(formulasFor(guard, result).find((l) => l.id === 'peak-current')!.note).toMatch(/same instant/);
+    expect(formulasFor(guard, result).find((l) => l.id === 'peak-current')!.note).toMatch(/peaks as simultaneous/);
     // P = I_rms² R for the resistor equals the engine's integrated average power.
     const power = formulasFor(guard, result).find((l) => l.id === 'power-R1')!;
     expect(power.note).toBeUndefined();
     expect(power.result.text).toBe(formatEng(result.elements[0]!.averagePower!, 'W'));
+  });
+});
+
+describe('margin wording', () => {
+  it('reads as a percentage near the rating and as a multiple far beyond it', () => {
+    // margin = (derated − stress) / derated (lib/stress/ratings.ts), so stress / derated = 1 − margin.
+    expect(formatMargin(0.7781)).toBe('77.8 %');
+    expect(formatMargin(0)).toBe('0.0 %');
+    expect(formatMargin(-0.566)).toBe('-56.6 %');
+    expect(formatMargin(-8.99)).toBe('-899.0 %');
+    expect(formatMargin(-9.5)).toBe('10.5× derated');
+    expect(formatMargin(-2008.588)).toBe('2010× derated');
+    expect(formatMargin(null)).toBe('—');
+    expect(formatMargin(-1e9)).toBe('far over');
   });
 });
