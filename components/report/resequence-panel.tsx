@@ -62,6 +62,7 @@ export function ResequencePanel({
   const router = useRouter();
   const [phase, setPhase] = useState<Phase>({ step: 'view' });
   const after = useMemo(() => proposedTerminals(terminals, proposal), [terminals, proposal]);
+  const slides = proposal.renumbered.filter((r) => !proposal.moves.some((m) => m.terminalId === r.terminalId));
 
   const apply = async () => {
     setPhase({ step: 'applying' });
@@ -126,15 +127,6 @@ export function ResequencePanel({
               <td className="font-mono">{m.to}</td>
             </tr>
           ))}
-          {proposal.renumbered
-            .filter((r) => !proposal.moves.some((m) => m.terminalId === r.terminalId))
-            .map((r) => (
-              <tr key={`slide-${r.terminalId}`} className="border-t border-line text-muted">
-                <td className="pr-4 font-mono">{r.label} <span className="font-sans text-xs">(slides along the rail)</span></td>
-                <td className="pr-4 font-mono">{r.from}</td>
-                <td className="font-mono">{r.to}</td>
-              </tr>
-            ))}
           {proposal.addedSeparators.map((s) => (
             <tr key={`sep-${s.position}`} className="border-t border-line">
               <td className="pr-4">new {s.kind}</td>
@@ -144,6 +136,20 @@ export function ResequencePanel({
           ))}
         </tbody>
       </table>
+      {slides.length > 0 && (
+        <details className="text-sm">
+          <summary className="cursor-pointer text-muted">
+            {slides.length} terminals slide along the rail to make room (renumbered, not re-landed)
+          </summary>
+          <ul className="mt-1 columns-2 font-mono text-xs sm:columns-3">
+            {slides.map((r) => (
+              <li key={r.terminalId}>
+                {r.label}: {r.from} → {r.to}
+              </li>
+            ))}
+          </ul>
+        </details>
+      )}
 
       {mayApply ? (
         <div className="space-y-2">

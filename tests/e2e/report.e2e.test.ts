@@ -144,6 +144,15 @@ describe('risk report', () => {
     await page.waitForURL(/\/audit\/strips\/\d+/);
     await page.getByRole('heading', { name: /Re-sequencing proposal/i }).waitFor();
     await shot(page, 'report-strip-1024');
+    // Applying asks first; cancelling changes nothing (the apply itself is the API's test).
+    const apply = page.getByRole('button', { name: /Apply this order/ });
+    if ((await apply.count()) > 0) {
+      await apply.click();
+      const confirm = page.getByRole('alertdialog');
+      await expect(confirm.textContent()).resolves.toMatch(/renumbers \d+ terminals/);
+      await page.getByRole('button', { name: 'Cancel' }).click();
+      await expect(confirm.count()).resolves.toBe(0);
+    }
     await page.close();
   });
 
