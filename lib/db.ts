@@ -35,11 +35,25 @@ export function configFromEnv(env: NodeJS.ProcessEnv = process.env): DbConfig {
   };
 }
 
+/**
+ * sqlite3 whose connections wait for a lock instead of failing at once with SQLITE_BUSY, and
+ * let readers proceed beside a writer (write-ahead log). Sequelize's SQLite dialect runs no
+ * connection hooks, so the driver itself is configured.
+ */
+class PatientDatabase extends sqlite3.Database {
+  constructor(filename: string, mode?: number, callback?: (err: Error | null) => void) {
+    super(filename, mode ?? sqlite3.OPEN_READWRITE | sqlite3.OPEN_CREATE, callback);
+    this.configure('busyTimeout', 10_000);
+    if (filename !== ':memory:') this.run('PRAGMA journal_mode = WAL');
+  }
+}
+const patientSqlite = { ...sqlite3, Database: PatientDatabase };
+
 function sqliteOptions(storage: string, logging: Options['logging']): Options {
   if (storage !== ':memory:')
     fs.mkdirSync(path.dirname(path.resolve(storage)), { recursive: true });
   // dialectModule: the bundler cannot resolve sqlite3 by name at run time (see STACK.md).
-  return { dialect: 'sqlite', dialectModule: sqlite3, storage, logging };
+  return { dialect: 'sqlite', dialectModule: patientSqlite, storage, logging };
 }
 
 /** A new, unbound Sequelize instance for `config` (no models attached). */
