@@ -49,6 +49,46 @@ export const DEFAULT_INPUT_CLAMP_CURRENT = 10e-3;
 /** IEC 60127-2 style: a miniature fuse is not required to open below 1.5 × rating, and opens within 30 min at 2.1 × (memory ⚠). */
 export const FUSE_SURE_OPEN_FACTOR = 2.1;
 
+/**
+ * Melting I²t gives the opening time only for short times (adiabatic heating; datasheets
+ * state it below about 10 ms: common practice, no source). Beyond, the fault is taken to persist.
+ */
+export const FUSE_CREDIT_TIME = 10e-3;
+
+/**
+ * The first fuse to open on a DC fault, and when (melting I²t / I², the current being on from
+ * the first instant), if within the credit time. An AC fault is not credited: how fast the fuse
+ * opens and what the other parts see before it does depend on the phase at which the fault
+ * starts, so they are judged as if it persisted (conservative).
+ */
+function fuseOpening(net: CompiledNetwork, sim: Simulation, sourceVoltage: number, stressCase: StressCase): { id: string; time: number } | null {
+  if (stressCase.kind !== 'dc') return null;
+  let best: { id: string; time: number } | null = null;
+  net.elements.forEach((info, index) => {
+    const el = info.element;
+    if (!el || el.kind !== 'fuse' || el.meltingI2t === undefined) return;
+    const f = figuresOf(sim, net, index, sourceVoltage);
+    if (!(f.rmsI >= FUSE_SURE_OPEN_FACTOR * el.ratedCurrent)) return;
+    // interrupting beyond its voltage rating is not credited (the fuse itself fails its check)
+    if (el.voltageRating === undefined || sourceVoltage > el.voltageRating) return;
+    const time = el.meltingI2t / (f.rmsI * f.rmsI);
+    if (time <= FUSE_CREDIT_TIME && (best === null || time < best.time)) best = { id: info.id, time };
+  });
+  return best;
+}
+
+/** DC figures turned into a pulse of the given length: same peaks, energy = power × time. */
+function asPulse(f: ElementFigures, time: number): ElementFigures {
+  const energy = f.average * time;
+  return {
+    ...f,
+    steady: false,
+    energy,
+    i2t: f.rmsI * f.rmsI * time,
+    halfValueTime: f.peakP > 0 ? (Math.LN2 * energy) / f.peakP : 0,
+  };
+}
+
 interface ElementFigures {
   steady: boolean;
   peakV: number;
@@ -173,7 +213,7 @@ function resistorChecks(
   return out;
 }
 
-function elementChecks(info: ElementInfo, f: ElementFigures, c: StressConditions, sim: Simulation): RatingCheck[] {
+function elementChecks(info: ElementInfo, f: ElementFigures, c: StressConditions, caseKind: StressCase['kind']): RatingCheck[] {
   const el = info.element!;
   const id = info.id;
   const st = semiconductorTemperatureFactor(c.ambientC);
@@ -200,7 +240,19 @@ function elementChecks(info: ElementInfo, f: ElementFigures, c: StressConditions
         const time = el.meltingI2t !== undefined ? el.meltingI2t / (f.rmsI * f.rmsI) : null;
         const when = time !== null ? `in about ${S(time)} (melting I²t ${formatEng(el.meltingI2t!, 'A²s')})` : '(opening time unknown: melting I²t not given)';
         const checks: RatingCheck[] = [
-          note('current', f.rmsI, 'holds', `${id}: ${A(f.rmsI)} rms opens the ${A(el.ratedCurrent)} fuse ${when}; the rest of the network is still judged as if the fault persisted (conservative)`, el.ratedCurrent),
+          note(
+            'current',
+            f.rmsI,
+            'holds',
+            `${id}: ${A(f.rmsI)} rms opens the ${A(el.ratedCurrent)} fuse ${when}; ${
+              time !== null && time <= FUSE_CREDIT_TIME && caseKind === 'dc'
+                ? 'the rest of the network is judged for that time'
+                : `the rest of the network is judged as if the fault persisted (${
+                    caseKind === 'ac' ? 'on AC the time depends on the phase the fault starts at' : time !== null ? `beyond ${S(FUSE_CREDIT_TIME)} the melting I²t does not give the opening time` : 'conservative'
+                  })`
+            }`,
+            el.ratedCurrent,
+          ),
         ];
         checks.push(
           check({
@@ -287,16 +339,18 @@ function elementChecks(info: ElementInfo, f: ElementFigures, c: StressConditions
     case 'tvs': {
       const pppm = el.peakPulsePower ?? el.clampVoltage * el.peakPulseCurrent;
       if (f.steady) {
+        // Conduction in either direction (breakdown, or forward for a unidirectional part) is
+        // judged on power first: a forward-biased TVS can carry a large current at 1 V.
+        if (el.steadyPower !== undefined && f.average > NEGLIGIBLE_POWER) {
+          return [check({ quantity: 'power', value: f.average, rating: el.steadyPower, temperatureFactor: st, margin: c.powerDerating, label: `${id}: ${W(f.peakP)} peak /`, suffix: 'average', unit: 'W' })];
+        }
+        if (f.average > NEGLIGIBLE_POWER) {
+          return [note('power', f.average, 'fails', `${id}: conducts ${W(f.average)} average (${A(f.peakI)} peak) continuously; a TVS is not rated for a continuous fault and fails short`)];
+        }
         if (f.peakV <= el.standoffVoltage) {
           return [note('voltage', f.peakV, 'holds', `${id}: ${V(f.peakV)} peak stays below its ${V(el.standoffVoltage)} stand-off voltage`, el.standoffVoltage)];
         }
-        if (el.steadyPower !== undefined) {
-          return [check({ quantity: 'power', value: f.average, rating: el.steadyPower, temperatureFactor: st, margin: c.powerDerating, label: `${id}: ${W(f.peakP)} peak /`, suffix: 'average', unit: 'W' })];
-        }
-        if (f.average <= NEGLIGIBLE_POWER) {
-          return [note('voltage', f.peakV, 'marginal', `${id}: ${V(f.peakV)} peak exceeds its ${V(el.standoffVoltage)} stand-off voltage (${W(f.average)} average)`, el.standoffVoltage)];
-        }
-        return [note('power', f.average, 'fails', `${id}: conducts ${W(f.average)} average (${A(f.peakI)} peak) continuously; a TVS is not rated for a continuous fault and fails short`)];
+        return [note('voltage', f.peakV, 'marginal', `${id}: ${V(f.peakV)} peak exceeds its ${V(el.standoffVoltage)} stand-off voltage (${W(f.average)} average)`, el.standoffVoltage)];
       }
       const factor = tvsPulseFactor(f.halfValueTime);
       return [
@@ -313,7 +367,7 @@ function elementChecks(info: ElementInfo, f: ElementFigures, c: StressConditions
     }
     case 'varistor': {
       if (f.steady) {
-        const isAc = sim.duration !== 1 || f.rmsV !== f.peakV;
+        const isAc = caseKind === 'ac';
         const rating = isAc ? el.maxContinuousVoltage : (el.maxContinuousDcVoltage ?? el.maxContinuousVoltage);
         return [check({ quantity: 'voltage', value: f.rmsV, rating, temperatureFactor: 1, margin: c.voltageDerating, label: `${id}: continuous ${isAc ? 'rms ' : ''}voltage`, unit: 'V' })];
       }
@@ -379,10 +433,16 @@ export function solveWithNetwork(
     stressCase.kind === 'ac' ? stressCase.rmsVoltage : stressCase.kind === 'dc' ? Math.abs(stressCase.voltage) : sim.sourcePeakVoltage;
 
   const elements: ElementStress[] = [];
+  // A fuse that opens on a steady fault within the melting-I²t range ends the fault for every
+  // element in series with it: they are judged on a pulse of that length instead.
+  const opening = sim.steady ? fuseOpening(net, sim, sourceVoltage, stressCase) : null;
   net.elements.forEach((info, index) => {
     if (info.role === 'input') return;
-    const f = figuresOf(sim, net, index, sourceVoltage);
-    const checks = elementChecks(info, f, conditions, sim);
+    let f = figuresOf(sim, net, index, sourceVoltage);
+    const credited = opening !== null && info.kind !== 'fuse';
+    if (credited) f = asPulse(f, opening.time);
+    const checks = elementChecks(info, f, conditions, stressCase.kind);
+    if (credited) for (const ch of checks) if (ch.reason) ch.reason += ` (for the ${S(opening.time)} until ${opening.id} opens)`;
     const { verdict, reason } = combine(checks, `${info.id}: no rating applies`);
     const isRailPair = info.kind === 'railDiodes';
     elements.push({

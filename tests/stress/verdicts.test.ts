@@ -86,6 +86,28 @@ describe('verdict classes', () => {
     expect(f1.reason).toMatch(/opens the 100 mA fuse in about/);
   });
 
+  it('a DC fault that opens the fuse within its melting-I²t range: the rest is judged for that time only', () => {
+    const guard: Guard = parseGuard({
+      stages: [
+        {
+          series: { kind: 'fuse', id: 'F1', ratedCurrent: '100mA', voltageRating: '250V', meltingI2t: '0.02', resistance: '1.5' },
+          shunts: [{ kind: 'tvs', id: 'TV1', bidirectional: true, standoffVoltage: '33V', breakdownVoltage: '36.7V', clampVoltage: '53.3V', peakPulseCurrent: '11.3A' }],
+        },
+      ],
+      input: { positiveRail: 24, negativeRail: 0, absMaxBeyondRail: 0.3, inputResistance: '10k', internalClamps: true },
+    });
+    const dc = solveStress(guard, { kind: 'dc', voltage: 60, sourceResistance: 2 }, CONDITIONS);
+    const f1 = dc.elements.find((e) => e.elementId === 'F1')!;
+    // I ≈ (60 − ~40 V) / 3.5 Ω ≈ 6 A: melting 0.02 A²s / 6² ≈ 0.6 ms
+    expect(f1.reason).toMatch(/opens the 100 mA fuse in about .*s \(melting I²t 20 mA²s\); the rest of the network is judged for that time/);
+    const tvs = dc.elements.find((e) => e.elementId === 'TV1')!;
+    expect(tvs.checks[0].quantity).toBe('pulsePower');
+    expect(tvs.reason).toMatch(/until F1 opens\)$/);
+    // the same fault on AC is not credited (the opening time depends on the phase)
+    const ac = solveStress(guard, { kind: 'ac', rmsVoltage: 42, frequency: 50, sourceResistance: 2 }, CONDITIONS);
+    expect(ac.elements.find((e) => e.elementId === 'TV1')!.checks[0].quantity).not.toBe('pulsePower');
+  });
+
   it('rail pump-up: clamp current into a lightly loaded 5 V rail fails in a steady fault', () => {
     const r = solveStress(NETWORKS.esdCapRail, CASES.ac24, CONDITIONS);
     const positive = r.rails.find((x) => x.rail === 'positive')!;
