@@ -20,8 +20,12 @@ for (const bench of BENCHES) {
   const result = bench.run();
   const figures = result === null ? [] : Array.isArray(result) ? result : [result];
   for (const f of figures) {
-    const goal = Number.isFinite(f.goalMs) ? ` (goal < ${f.goalMs} ms: ${f.medianMs <= f.goalMs || f.cpuMedianMs <= f.goalMs ? 'met' : 'NOT met'})` : '';
+    const goal = Number.isFinite(f.goalMs)
+      ? ` (goal < ${f.goalMs} ms: ${f.medianMs <= f.goalMs || f.cpuMedianMs <= f.goalMs ? 'met' : 'NOT met'})`
+      : '';
     const cpu = Number.isFinite(f.cpuMedianMs) ? `, CPU ${f.cpuMedianMs.toFixed(1)} ms` : '';
-    console.log(`${f.name}: ${f.medianMs.toFixed(f.medianMs < 10 ? 3 : 1)} ms median wall${cpu}${goal} — ${f.detail}`);
+    console.log(
+      `${f.name}: ${f.medianMs.toFixed(f.medianMs < 10 ? 3 : 1)} ms median wall${cpu}${goal} — ${f.detail}`,
+    );
   }
 }

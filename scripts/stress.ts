@@ -35,10 +35,16 @@ try {
 try {
   const request = parseStressRequest(json);
   const results = request.cases.map((c) =>
-    solveStress(request.guard, c, request.conditions, { waveform: request.waveform, maxWaveformPoints: request.maxWaveformPoints }),
+    solveStress(request.guard, c, request.conditions, {
+      waveform: request.waveform,
+      maxWaveformPoints: request.maxWaveformPoints,
+    }),
   );
   const output = {
-    verdict: results.reduce((worst, r) => (rank(r.verdict) > rank(worst) ? r.verdict : worst), 'holds' as (typeof results)[number]['verdict']),
+    verdict: results.reduce(
+      (worst, r) => (rank(r.verdict) > rank(worst) ? r.verdict : worst),
+      'holds' as (typeof results)[number]['verdict'],
+    ),
     conditions: request.conditions,
     results,
   };

@@ -26,7 +26,14 @@ import type {
 } from '../stress/types';
 import { VERDICT_SEVERITY } from '../stress/types';
 
-export type RemedyKind = 'seriesResistance' | 'resistorPower' | 'resistorVoltage' | 'resistorOverloadVoltage' | 'resistorPulseEnergy' | 'tvsPulsePower' | 'combined';
+export type RemedyKind =
+  | 'seriesResistance'
+  | 'resistorPower'
+  | 'resistorVoltage'
+  | 'resistorOverloadVoltage'
+  | 'resistorPulseEnergy'
+  | 'tvsPulsePower'
+  | 'combined';
 
 export interface RemedyChange {
   elementId: string;
@@ -52,16 +59,25 @@ export interface Remedy {
 }
 
 /** E24 (IEC 60063): the historic values, not the formula. */
-export const E24 = [1.0, 1.1, 1.2, 1.3, 1.5, 1.6, 1.8, 2.0, 2.2, 2.4, 2.7, 3.0, 3.3, 3.6, 3.9, 4.3, 4.7, 5.1, 5.6, 6.2, 6.8, 7.5, 8.2, 9.1];
+export const E24 = [
+  1.0, 1.1, 1.2, 1.3, 1.5, 1.6, 1.8, 2.0, 2.2, 2.4, 2.7, 3.0, 3.3, 3.6, 3.9, 4.3, 4.7, 5.1, 5.6,
+  6.2, 6.8, 7.5, 8.2, 9.1,
+];
 /** E96 (IEC 60063): 10^(i/96) rounded to three figures, which is how E48–E192 are defined. */
 export const E96 = Array.from({ length: 96 }, (_, i) => Number((10 ** (i / 96)).toPrecision(3)));
 
 /** Standard power ratings of resistors (W), chip and through-hole (common practice). */
-export const POWER_STEPS = [0.063, 0.1, 0.125, 0.25, 0.4, 0.5, 0.6, 0.75, 1, 1.5, 2, 3, 5, 7, 10, 15, 20, 25, 50, 100];
+export const POWER_STEPS = [
+  0.063, 0.1, 0.125, 0.25, 0.4, 0.5, 0.6, 0.75, 1, 1.5, 2, 3, 5, 7, 10, 15, 20, 25, 50, 100,
+];
 /** Standard limiting element / overload voltages (V) seen on datasheets (common practice). */
-export const VOLTAGE_STEPS = [50, 75, 100, 150, 200, 250, 300, 350, 400, 500, 750, 1000, 1500, 2000, 3000, 5000, 10000];
+export const VOLTAGE_STEPS = [
+  50, 75, 100, 150, 200, 250, 300, 350, 400, 500, 750, 1000, 1500, 2000, 3000, 5000, 10000,
+];
 /** TVS peak pulse power classes on 10/1000 µs (W) (common practice; REFERENCE.md 400/600/1500 W). */
-export const TVS_POWER_STEPS = [200, 300, 400, 500, 600, 1000, 1500, 3000, 5000, 8000, 15000, 30000];
+export const TVS_POWER_STEPS = [
+  200, 300, 400, 500, 600, 1000, 1500, 3000, 5000, 8000, 15000, 30000,
+];
 
 const MAX_SERIES_RESISTANCE = 10e6;
 
@@ -93,13 +109,20 @@ function evaluate(guard: Guard, cases: StressCase[], conditions: StressCondition
   const net = compileGuard(guard);
   const results = cases.map((c) => solveWithNetwork(guard, net, c, conditions));
   let worst = results[0];
-  for (const r of results) if (VERDICT_SEVERITY[r.verdict] > VERDICT_SEVERITY[worst.verdict]) worst = r;
+  for (const r of results)
+    if (VERDICT_SEVERITY[r.verdict] > VERDICT_SEVERITY[worst.verdict]) worst = r;
   return { verdict: worst.verdict, reason: worst.reason, results };
 }
 
 type ResistorLike = ResistorElement | ShuntResistorElement;
 
-function locate(guard: Guard, id: string): { stage: number; element: Guard['stages'][number]['series'] | Guard['stages'][number]['shunts'][number] } | null {
+function locate(
+  guard: Guard,
+  id: string,
+): {
+  stage: number;
+  element: Guard['stages'][number]['series'] | Guard['stages'][number]['shunts'][number];
+} | null {
   for (let k = 0; k < guard.stages.length; k++) {
     const s = guard.stages[k];
     if (s.series.id === id) return { stage: k + 1, element: s.series };
@@ -117,7 +140,8 @@ function withChange(guard: Guard, changes: RemedyChange[]): Guard {
     element[change.field] = change.to;
     if (change.field === 'peakPulsePower' && found.element.kind === 'tvs') {
       // a bigger part of the same clamping voltage
-      (found.element as TvsElement).peakPulseCurrent = change.to / (found.element as TvsElement).clampVoltage;
+      (found.element as TvsElement).peakPulseCurrent =
+        change.to / (found.element as TvsElement).clampVoltage;
     }
   }
   return copy;
@@ -125,15 +149,22 @@ function withChange(guard: Guard, changes: RemedyChange[]): Guard {
 
 /** Element checks across all results, for one element. */
 function checksOf(results: StressResult[], id: string) {
-  return results.flatMap((r) => r.elements.filter((e) => e.elementId === id).flatMap((e) => e.checks));
+  return results.flatMap((r) =>
+    r.elements.filter((e) => e.elementId === id).flatMap((e) => e.checks),
+  );
 }
 
 function elementHolds(results: StressResult[], id: string): boolean {
-  return results.every((r) => r.elements.filter((e) => e.elementId === id).every((e) => e.verdict === 'holds'));
+  return results.every((r) =>
+    r.elements.filter((e) => e.elementId === id).every((e) => e.verdict === 'holds'),
+  );
 }
 
 function describe(changes: RemedyChange[], note = ''): string {
-  const parts = changes.map((c) => `${c.elementId} ${c.field}: ${c.from === null ? 'not given' : formatEng(c.from, c.unit)} → ${formatEng(c.to, c.unit)}`);
+  const parts = changes.map(
+    (c) =>
+      `${c.elementId} ${c.field}: ${c.from === null ? 'not given' : formatEng(c.from, c.unit)} → ${formatEng(c.to, c.unit)}`,
+  );
   return `${parts.join('; ')}${note}`;
 }
 
@@ -154,35 +185,82 @@ function roundUp2(x: number): number {
  * checks); `complete` is false when some stress is beyond every standard step (the changes
  * then cover only the rest).
  */
-function ratingChanges(r: ResistorLike, stage: number, checks: RatingCheck[], conditions: StressConditions): { changes: RemedyChange[]; complete: boolean } {
+function ratingChanges(
+  r: ResistorLike,
+  stage: number,
+  checks: RatingCheck[],
+  conditions: StressConditions,
+): { changes: RemedyChange[]; complete: boolean } {
   const changes: RemedyChange[] = [];
   let complete = true;
-  const need = (quantity: string) => checks.filter((c) => c.quantity === quantity && c.verdict !== 'holds');
+  const need = (quantity: string) =>
+    checks.filter((c) => c.quantity === quantity && c.verdict !== 'holds');
   const powerChecks = need('power');
   if (powerChecks.length > 0) {
     const stress = Math.max(...powerChecks.map((c) => c.value));
-    const ratio = powerChecks.map((c) => (c.rating && c.deratedRating ? c.deratedRating / c.rating : null)).find((f) => f !== null) ?? conditions.powerDerating;
+    const ratio =
+      powerChecks
+        .map((c) => (c.rating && c.deratedRating ? c.deratedRating / c.rating : null))
+        .find((f) => f !== null) ?? conditions.powerDerating;
     const step = ratio > 0 ? firstStep(POWER_STEPS, stress / ratio) : null;
     if (step === null) complete = false;
-    else changes.push({ elementId: r.id, stage, field: 'ratedPower', from: r.ratedPower ?? null, to: step, unit: 'W' });
+    else
+      changes.push({
+        elementId: r.id,
+        stage,
+        field: 'ratedPower',
+        from: r.ratedPower ?? null,
+        to: step,
+        unit: 'W',
+      });
   }
   const voltageChecks = need('voltage');
   const steadyVoltage = voltageChecks.filter((c) => c.reason?.includes('pulse') !== true);
   const pulseVoltage = voltageChecks.filter((c) => c.reason?.includes('pulse') === true);
   if (steadyVoltage.length > 0) {
-    const step = firstStep(VOLTAGE_STEPS, Math.max(...steadyVoltage.map((c) => c.value)) / conditions.voltageDerating);
+    const step = firstStep(
+      VOLTAGE_STEPS,
+      Math.max(...steadyVoltage.map((c) => c.value)) / conditions.voltageDerating,
+    );
     if (step === null) complete = false;
-    else changes.push({ elementId: r.id, stage, field: 'limitingVoltage', from: r.limitingVoltage ?? null, to: step, unit: 'V' });
+    else
+      changes.push({
+        elementId: r.id,
+        stage,
+        field: 'limitingVoltage',
+        from: r.limitingVoltage ?? null,
+        to: step,
+        unit: 'V',
+      });
   }
   if (pulseVoltage.length > 0) {
-    const step = firstStep(VOLTAGE_STEPS, Math.max(...pulseVoltage.map((c) => c.value)) / conditions.voltageDerating);
+    const step = firstStep(
+      VOLTAGE_STEPS,
+      Math.max(...pulseVoltage.map((c) => c.value)) / conditions.voltageDerating,
+    );
     if (step === null) complete = false;
-    else changes.push({ elementId: r.id, stage, field: 'overloadVoltage', from: r.overloadVoltage ?? null, to: step, unit: 'V' });
+    else
+      changes.push({
+        elementId: r.id,
+        stage,
+        field: 'overloadVoltage',
+        from: r.overloadVoltage ?? null,
+        to: step,
+        unit: 'V',
+      });
   }
   const energyChecks = need('energy');
   if (energyChecks.length > 0) {
     if (r.kind !== 'resistor') complete = false;
-    else changes.push({ elementId: r.id, stage, field: 'pulseEnergy', from: r.pulseEnergy ?? null, to: roundUp2(Math.max(...energyChecks.map((c) => c.value)) / conditions.powerDerating), unit: 'J' });
+    else
+      changes.push({
+        elementId: r.id,
+        stage,
+        field: 'pulseEnergy',
+        from: r.pulseEnergy ?? null,
+        to: roundUp2(Math.max(...energyChecks.map((c) => c.value)) / conditions.powerDerating),
+        unit: 'J',
+      });
   }
   return { changes, complete };
 }
@@ -205,7 +283,14 @@ export function suggestRemedies(
   const push = (kind: RemedyKind, changes: RemedyChange[], note = ''): Evaluation => {
     const changed = withChange(guard, changes);
     const after = evaluate(changed, cases, conditions);
-    remedies.push({ kind, changes, description: describe(changes, note), verdict: after.verdict, reason: after.reason, guard: changed });
+    remedies.push({
+      kind,
+      changes,
+      description: describe(changes, note),
+      verdict: after.verdict,
+      reason: after.reason,
+      guard: changed,
+    });
     return after;
   };
   const perElement: RemedyChange[] = [];
@@ -220,7 +305,13 @@ export function suggestRemedies(
       const { changes } = ratingChanges(r, k + 1, checksOf(base.results, r.id), conditions);
       for (const change of changes) {
         const kind: RemedyKind =
-          change.field === 'ratedPower' ? 'resistorPower' : change.field === 'limitingVoltage' ? 'resistorVoltage' : change.field === 'overloadVoltage' ? 'resistorOverloadVoltage' : 'resistorPulseEnergy';
+          change.field === 'ratedPower'
+            ? 'resistorPower'
+            : change.field === 'limitingVoltage'
+              ? 'resistorVoltage'
+              : change.field === 'overloadVoltage'
+                ? 'resistorOverloadVoltage'
+                : 'resistorPulseEnergy';
         push(kind, [change]);
       }
       perElement.push(...changes);
@@ -231,15 +322,28 @@ export function suggestRemedies(
   guard.stages.forEach((stage, k) => {
     for (const sh of stage.shunts) {
       if (sh.kind !== 'tvs' || elementHolds(base.results, sh.id)) continue;
-      const pulse = checksOf(base.results, sh.id).filter((c) => c.quantity === 'pulsePower' && c.verdict !== 'holds');
+      const pulse = checksOf(base.results, sh.id).filter(
+        (c) => c.quantity === 'pulsePower' && c.verdict !== 'holds',
+      );
       if (pulse.length === 0) continue; // steady faults: no pulse rating can help
       const current = sh.peakPulsePower ?? sh.clampVoltage * sh.peakPulseCurrent;
       for (const step of TVS_POWER_STEPS) {
         if (step <= current) continue;
-        const change: RemedyChange = { elementId: sh.id, stage: k + 1, field: 'peakPulsePower', from: current, to: step, unit: 'W' };
+        const change: RemedyChange = {
+          elementId: sh.id,
+          stage: k + 1,
+          field: 'peakPulsePower',
+          from: current,
+          to: step,
+          unit: 'W',
+        };
         const after = evaluate(withChange(guard, [change]), cases, conditions);
         if (elementHolds(after.results, sh.id)) {
-          push('tvsPulsePower', [change], ' (10/1000 µs; a larger part of the same clamping voltage)');
+          push(
+            'tvsPulsePower',
+            [change],
+            ' (10/1000 µs; a larger part of the same clamping voltage)',
+          );
           perElement.push(change);
           break;
         }
@@ -252,13 +356,28 @@ export function suggestRemedies(
   if (outer >= 0) {
     const resistor = guard.stages[outer].series as ResistorElement;
     const candidates = eSeriesAbove(resistor.resistance, MAX_SERIES_RESISTANCE, series);
-    const valueChange = (value: number): RemedyChange => ({ elementId: resistor.id, stage: outer + 1, field: 'resistance', from: resistor.resistance, to: value, unit: 'Ω' });
+    const valueChange = (value: number): RemedyChange => ({
+      elementId: resistor.id,
+      stage: outer + 1,
+      field: 'resistance',
+      from: resistor.resistance,
+      to: value,
+      unit: 'Ω',
+    });
     /** The value alone, or (withRatings) the value with the resistor's own ratings sized to the stress at that value. */
-    const attempt = (value: number, withRatings: boolean): { changes: RemedyChange[]; result: Evaluation } | null => {
+    const attempt = (
+      value: number,
+      withRatings: boolean,
+    ): { changes: RemedyChange[]; result: Evaluation } | null => {
       const changes = [valueChange(value)];
       if (withRatings) {
         const probe = evaluate(withChange(guard, changes), cases, conditions);
-        const extra = ratingChanges(resistor, outer + 1, checksOf(probe.results, resistor.id), conditions);
+        const extra = ratingChanges(
+          resistor,
+          outer + 1,
+          checksOf(probe.results, resistor.id),
+          conditions,
+        );
         if (!extra.complete) return null;
         changes.push(...extra.changes);
       }
@@ -283,7 +402,12 @@ export function suggestRemedies(
       push('seriesResistance', alone.changes, ` (${series}; check the signal still works)`);
     } else {
       const rated = search(true);
-      if (rated) push('seriesResistance', rated.changes, ` (${series}, with its ratings sized to the new stress; check the signal still works)`);
+      if (rated)
+        push(
+          'seriesResistance',
+          rated.changes,
+          ` (${series}, with its ratings sized to the new stress; check the signal still works)`,
+        );
     }
   }
 
@@ -291,5 +415,9 @@ export function suggestRemedies(
   if (perElement.length > 1) push('combined', perElement, ' (all of the above together)');
 
   // smallest useful first: those that make the channel hold, then by how many changes
-  return remedies.sort((a, b) => VERDICT_SEVERITY[a.verdict] - VERDICT_SEVERITY[b.verdict] || a.changes.length - b.changes.length);
+  return remedies.sort(
+    (a, b) =>
+      VERDICT_SEVERITY[a.verdict] - VERDICT_SEVERITY[b.verdict] ||
+      a.changes.length - b.changes.length,
+  );
 }

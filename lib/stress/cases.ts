@@ -4,7 +4,12 @@
 import type { AcCase, DcCase, EsdCase, SurgeCase } from './types';
 
 /** Steady mains at its maximum: nominal × (1 + tolerance); IEC 60038: 230 V + 10 % = 253 V. */
-export function mainsCase(nominalRms: number, tolerance: number, frequency: number, sourceResistance = 0): AcCase {
+export function mainsCase(
+  nominalRms: number,
+  tolerance: number,
+  frequency: number,
+  sourceResistance = 0,
+): AcCase {
   return { kind: 'ac', rmsVoltage: nominalRms * (1 + tolerance), frequency, sourceResistance };
 }
 
@@ -26,7 +31,11 @@ export type SurgeCoupling = keyof typeof SURGE_COUPLING;
 export const SURGE_LEVELS = { 1: 500, 2: 1000, 3: 2000, 4: 4000 } as const;
 
 export function surgeCase(peakVoltage: number, coupling: SurgeCoupling | number): SurgeCase {
-  return { kind: 'surge', peakVoltage, couplingResistance: typeof coupling === 'number' ? coupling : SURGE_COUPLING[coupling] };
+  return {
+    kind: 'surge',
+    peakVoltage,
+    couplingResistance: typeof coupling === 'number' ? coupling : SURGE_COUPLING[coupling],
+  };
 }
 
 /** IEC 61000-4-2 contact-discharge levels 1–4: 2, 4, 6, 8 kV. */

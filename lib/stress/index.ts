@@ -21,7 +21,20 @@ export {
   tvsPulseFactor,
   DEFAULT_CONDITIONS,
 } from './ratings';
-export { surgeOpenCircuitVoltage, SURGE_GENERATOR_IMPEDANCE, ESD_CAPACITANCE, ESD_RESISTANCE } from './waveforms';
+export {
+  surgeOpenCircuitVoltage,
+  SURGE_GENERATOR_IMPEDANCE,
+  ESD_CAPACITANCE,
+  ESD_RESISTANCE,
+} from './waveforms';
 export { parseEng, formatEng, EngParseError } from '../units';
-export { mainsCase, dcSupplyCase, surgeCase, esdCase, SURGE_COUPLING, SURGE_LEVELS, ESD_CONTACT_LEVELS } from './cases';
+export {
+  mainsCase,
+  dcSupplyCase,
+  surgeCase,
+  esdCase,
+  SURGE_COUPLING,
+  SURGE_LEVELS,
+  ESD_CONTACT_LEVELS,
+} from './cases';
 export type { SurgeCoupling } from './cases';

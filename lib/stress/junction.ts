@@ -113,11 +113,16 @@ export function forwardDiodeParams(
   emission = 2,
   seriesResistance?: number,
 ): JunctionParams {
-  const rs = Math.max(seriesResistance ?? (0.05 * forwardVoltage) / forwardCurrent, MIN_SERIES_RESISTANCE);
+  const rs = Math.max(
+    seriesResistance ?? (0.05 * forwardVoltage) / forwardCurrent,
+    MIN_SERIES_RESISTANCE,
+  );
   const nvt = emission * THERMAL_VOLTAGE;
   const junctionDrop = forwardVoltage - forwardCurrent * rs;
   if (!(junctionDrop > 0)) {
-    throw new RangeError(`forward voltage ${forwardVoltage} V is below the series drop at ${forwardCurrent} A`);
+    throw new RangeError(
+      `forward voltage ${forwardVoltage} V is below the series drop at ${forwardCurrent} A`,
+    );
   }
   const saturationCurrent = forwardCurrent / Math.expm1(junctionDrop / nvt);
   return { saturationCurrent, emission, seriesResistance: rs, offset: 0 };
@@ -161,8 +166,14 @@ export function tvsBreakdownParams(
 ): JunctionParams {
   const saturationCurrent = testCurrent * 1e-9;
   const vt = THERMAL_VOLTAGE;
-  const junctionRise = vt * (Math.log1p(peakPulseCurrent / saturationCurrent) - Math.log1p(testCurrent / saturationCurrent));
-  const rs = Math.max((clampVoltage - breakdownVoltage - junctionRise) / (peakPulseCurrent - testCurrent), MIN_SERIES_RESISTANCE);
+  const junctionRise =
+    vt *
+    (Math.log1p(peakPulseCurrent / saturationCurrent) -
+      Math.log1p(testCurrent / saturationCurrent));
+  const rs = Math.max(
+    (clampVoltage - breakdownVoltage - junctionRise) / (peakPulseCurrent - testCurrent),
+    MIN_SERIES_RESISTANCE,
+  );
   const p: JunctionParams = { saturationCurrent, emission: 1, seriesResistance: rs, offset: 0 };
   p.offset = breakdownVoltage - junctionVoltage(p, testCurrent);
   return p;

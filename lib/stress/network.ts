@@ -38,7 +38,11 @@ export const MODEL_DEFAULTS = {
 
 /** A shunt branch in SI, as derived from datasheet figures (also used to write SPICE netlists). */
 export interface BranchSpec {
-  type: typeof BRANCH_LINEAR | typeof BRANCH_JUNCTION | typeof BRANCH_POWER_LAW | typeof BRANCH_CAPACITOR;
+  type:
+    | typeof BRANCH_LINEAR
+    | typeof BRANCH_JUNCTION
+    | typeof BRANCH_POWER_LAW
+    | typeof BRANCH_CAPACITOR;
   /** Reference the branch returns to: the common, or a rail. */
   reference: 'common' | 'positiveRail' | 'negativeRail';
   /** Junction orientation: +1 conducts when the node is above the reference. */
@@ -101,7 +105,12 @@ export interface CompiledNetwork {
 export function shuntBranches(el: ShuntElement, notes: string[]): BranchSpec[] {
   switch (el.kind) {
     case 'railDiodes': {
-      const j = forwardDiodeParams(el.forwardVoltage, el.forwardCurrent, el.emissionCoefficient, el.seriesResistance);
+      const j = forwardDiodeParams(
+        el.forwardVoltage,
+        el.forwardCurrent,
+        el.emissionCoefficient,
+        el.seriesResistance,
+      );
       return [
         { type: BRANCH_JUNCTION, reference: 'positiveRail', direction: 1, junction: j },
         { type: BRANCH_JUNCTION, reference: 'negativeRail', direction: -1, junction: j },
@@ -109,7 +118,8 @@ export function shuntBranches(el: ShuntElement, notes: string[]): BranchSpec[] {
     }
     case 'zener': {
       const it = el.testCurrent ?? MODEL_DEFAULTS.zenerTestCurrent;
-      if (el.testCurrent === undefined) notes.push(`${el.id}: zener test current not given, 5 mA assumed`);
+      if (el.testCurrent === undefined)
+        notes.push(`${el.id}: zener test current not given, 5 mA assumed`);
       const fv = el.forwardVoltage ?? MODEL_DEFAULTS.zenerForwardVoltage;
       const fi = el.forwardCurrent ?? MODEL_DEFAULTS.zenerForwardCurrent;
       const forward = forwardDiodeParams(fv, fi);
@@ -152,12 +162,25 @@ export function shuntBranches(el: ShuntElement, notes: string[]): BranchSpec[] {
       // the usual way a varistor's non-linearity exponent is read off its V–I curve.
       const i1 = MODEL_DEFAULTS.varistorReferenceCurrent;
       const alpha = Math.log(el.clampCurrent / i1) / Math.log(el.clampVoltage / el.varistorVoltage);
-      return [{ type: BRANCH_POWER_LAW, reference: 'common', direction: 1, i1, v1: el.varistorVoltage, alpha }];
+      return [
+        {
+          type: BRANCH_POWER_LAW,
+          reference: 'common',
+          direction: 1,
+          i1,
+          v1: el.varistorVoltage,
+          alpha,
+        },
+      ];
     }
     case 'capacitor':
-      return [{ type: BRANCH_CAPACITOR, reference: 'common', direction: 1, capacitance: el.capacitance }];
+      return [
+        { type: BRANCH_CAPACITOR, reference: 'common', direction: 1, capacitance: el.capacitance },
+      ];
     case 'shuntResistor':
-      return [{ type: BRANCH_LINEAR, reference: 'common', direction: 1, conductance: 1 / el.resistance }];
+      return [
+        { type: BRANCH_LINEAR, reference: 'common', direction: 1, conductance: 1 / el.resistance },
+      ];
   }
 }
 
@@ -166,7 +189,12 @@ export function inputBranches(guard: Guard): BranchSpec[] {
   const input = guard.input;
   const out: BranchSpec[] = [];
   if (input.inputResistance !== undefined) {
-    out.push({ type: BRANCH_LINEAR, reference: 'negativeRail', direction: 1, conductance: 1 / input.inputResistance });
+    out.push({
+      type: BRANCH_LINEAR,
+      reference: 'negativeRail',
+      direction: 1,
+      conductance: 1 / input.inputResistance,
+    });
   }
   if (input.internalClamps) {
     const j = forwardDiodeParams(
@@ -206,17 +234,39 @@ export function compileGuard(guard: Guard): CompiledNetwork {
     stages.forEach((stage, k) => {
       seriesResistance[k] = seriesResistanceOf(stage.series);
       seriesElementOfNode[k] = elements.length;
-      elements.push({ element: stage.series, id: stage.series.id, kind: stage.series.kind, stage: k + 1, role: 'series', node: k });
+      elements.push({
+        element: stage.series,
+        id: stage.series.id,
+        kind: stage.series.kind,
+        stage: k + 1,
+        role: 'series',
+        node: k,
+      });
       for (const shunt of stage.shunts) {
         const index = elements.length;
-        elements.push({ element: shunt, id: shunt.id, kind: shunt.kind, stage: k + 1, role: 'shunt', node: k });
+        elements.push({
+          element: shunt,
+          id: shunt.id,
+          kind: shunt.kind,
+          stage: k + 1,
+          role: 'shunt',
+          node: k,
+        });
         for (const spec of shuntBranches(shunt, notes)) perNode[k].push({ spec, element: index });
       }
     });
   }
   const inputElement = elements.length;
-  elements.push({ element: null, id: 'input', kind: 'input', stage: nodeCount, role: 'input', node: nodeCount - 1 });
-  for (const spec of inputBranches(guard)) perNode[nodeCount - 1].push({ spec, element: inputElement });
+  elements.push({
+    element: null,
+    id: 'input',
+    kind: 'input',
+    stage: nodeCount,
+    role: 'input',
+    node: nodeCount - 1,
+  });
+  for (const spec of inputBranches(guard))
+    perNode[nodeCount - 1].push({ spec, element: inputElement });
 
   const flat = perNode.flat();
   const count = flat.length;
@@ -268,9 +318,19 @@ export function compileGuard(guard: Guard): CompiledNetwork {
       // Rail injection counts clamp junctions only; an input resistance to the negative rail
       // is the input's own load, not a clamp.
       net.branchRail[b] =
-        spec.type !== BRANCH_JUNCTION ? 0 : spec.reference === 'positiveRail' ? 1 : spec.reference === 'negativeRail' ? -1 : 0;
+        spec.type !== BRANCH_JUNCTION
+          ? 0
+          : spec.reference === 'positiveRail'
+            ? 1
+            : spec.reference === 'negativeRail'
+              ? -1
+              : 0;
       net.branchReference[b] =
-        spec.reference === 'positiveRail' ? guard.input.positiveRail : spec.reference === 'negativeRail' ? guard.input.negativeRail : 0;
+        spec.reference === 'positiveRail'
+          ? guard.input.positiveRail
+          : spec.reference === 'negativeRail'
+            ? guard.input.negativeRail
+            : 0;
       net.branchElement[b] = element;
       net.branchJunction[b] = spec.junction ?? null;
       if (spec.junction) {
@@ -280,7 +340,9 @@ export function compileGuard(guard: Guard): CompiledNetwork {
         net.branchRs[b] = j.seriesResistance;
         net.branchNvt[b] = nvt;
         net.branchInverseNvt[b] = 1 / nvt;
-        net.branchLogPrefactor[b] = Math.log((j.saturationCurrent * j.seriesResistance) / nvt) + (j.saturationCurrent * j.seriesResistance) / nvt;
+        net.branchLogPrefactor[b] =
+          Math.log((j.saturationCurrent * j.seriesResistance) / nvt) +
+          (j.saturationCurrent * j.seriesResistance) / nvt;
         net.branchOffset[b] = j.offset;
       }
       net.branchConductance[b] = spec.conductance ?? 0;

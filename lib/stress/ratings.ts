@@ -115,8 +115,23 @@ export function check(input: CheckInput): RatingCheck {
 }
 
 /** A check that records a fact without a rating (e.g. a fuse that does not open). */
-export function note(quantity: StressQuantity, value: number, verdict: Verdict, reason: string, rating: number | null = null): RatingCheck {
-  return { quantity, value, rating, deratedRating: rating, temperatureRating: rating, margin: null, verdict, reason };
+export function note(
+  quantity: StressQuantity,
+  value: number,
+  verdict: Verdict,
+  reason: string,
+  rating: number | null = null,
+): RatingCheck {
+  return {
+    quantity,
+    value,
+    rating,
+    deratedRating: rating,
+    temperatureRating: rating,
+    margin: null,
+    verdict,
+    reason,
+  };
 }
 
 export function worstVerdict(verdicts: Verdict[]): Verdict {

@@ -12,26 +12,32 @@ type Bound = 'positive' | 'nonnegative' | 'any';
 function eng(unit: UnitSymbol, bound: Bound = 'positive') {
   return z
     .union([z.number(), z.string()], {
-      error: (issue) => (issue.input === undefined ? `required (a value in ${unit})` : `must be a number or an engineering-notation string such as "4k99" (${unit})`),
+      error: (issue) =>
+        issue.input === undefined
+          ? `required (a value in ${unit})`
+          : `must be a number or an engineering-notation string such as "4k99" (${unit})`,
     })
     .transform((raw, ctx): number => {
-    let value: number;
-    try {
-      value = parseEng(raw, unit);
-    } catch (error) {
-      ctx.addIssue({ code: 'custom', message: error instanceof EngParseError ? error.message : String(error) });
-      return z.NEVER;
-    }
-    if (bound === 'positive' && !(value > 0)) {
-      ctx.addIssue({ code: 'custom', message: `must be greater than 0 ${unit} (got ${value})` });
-      return z.NEVER;
-    }
-    if (bound === 'nonnegative' && !(value >= 0)) {
-      ctx.addIssue({ code: 'custom', message: `must not be negative (got ${value} ${unit})` });
-      return z.NEVER;
-    }
-    return value;
-  });
+      let value: number;
+      try {
+        value = parseEng(raw, unit);
+      } catch (error) {
+        ctx.addIssue({
+          code: 'custom',
+          message: error instanceof EngParseError ? error.message : String(error),
+        });
+        return z.NEVER;
+      }
+      if (bound === 'positive' && !(value > 0)) {
+        ctx.addIssue({ code: 'custom', message: `must be greater than 0 ${unit} (got ${value})` });
+        return z.NEVER;
+      }
+      if (bound === 'nonnegative' && !(value >= 0)) {
+        ctx.addIssue({ code: 'custom', message: `must not be negative (got ${value} ${unit})` });
+        return z.NEVER;
+      }
+      return value;
+    });
 }
 
 const id = z.string().trim().min(1, 'element id is required').max(40);
@@ -55,7 +61,10 @@ const ptc = z
     maxVoltage: eng('V').optional(),
     maxCurrent: eng('A').optional(),
   })
-  .refine((p) => p.tripCurrent >= p.holdCurrent, { message: 'trip current must not be below the hold current', path: ['tripCurrent'] });
+  .refine((p) => p.tripCurrent >= p.holdCurrent, {
+    message: 'trip current must not be below the hold current',
+    path: ['tripCurrent'],
+  });
 const fuse = z.strictObject({
   kind: z.literal('fuse'),
   id,
@@ -66,7 +75,8 @@ const fuse = z.strictObject({
 });
 const wire = z.strictObject({ kind: z.literal('wire'), id, resistance: eng('Ω', 'nonnegative') });
 const series = z.discriminatedUnion('kind', [resistor, ptc, fuse, wire], {
-  error: (issue) => `unknown series element kind ${JSON.stringify((issue.input as { kind?: unknown } | undefined)?.kind)}: expected resistor, ptc, fuse or wire`,
+  error: (issue) =>
+    `unknown series element kind ${JSON.stringify((issue.input as { kind?: unknown } | undefined)?.kind)}: expected resistor, ptc, fuse or wire`,
 });
 
 const railDiodes = z
@@ -81,10 +91,14 @@ const railDiodes = z
     emissionCoefficient: z.number().min(0.5).max(4).optional(),
     seriesResistance: eng('Ω', 'nonnegative').optional(),
   })
-  .refine((d) => d.seriesResistance === undefined || d.forwardVoltage > d.forwardCurrent * d.seriesResistance, {
-    message: 'series resistance × forward current must stay below the forward voltage',
-    path: ['seriesResistance'],
-  });
+  .refine(
+    (d) =>
+      d.seriesResistance === undefined || d.forwardVoltage > d.forwardCurrent * d.seriesResistance,
+    {
+      message: 'series resistance × forward current must stay below the forward voltage',
+      path: ['seriesResistance'],
+    },
+  );
 const zener = z.strictObject({
   kind: z.literal('zener'),
   id,
@@ -111,9 +125,18 @@ const tvs = z
     forwardVoltage: eng('V').optional(),
     forwardCurrent: eng('A').optional(),
   })
-  .refine((t) => t.breakdownVoltage >= t.standoffVoltage, { message: 'breakdown voltage must not be below the stand-off voltage', path: ['breakdownVoltage'] })
-  .refine((t) => t.clampVoltage > t.breakdownVoltage, { message: 'clamping voltage must exceed the breakdown voltage', path: ['clampVoltage'] })
-  .refine((t) => t.peakPulseCurrent > (t.testCurrent ?? 1e-3), { message: 'peak pulse current must exceed the breakdown test current', path: ['peakPulseCurrent'] });
+  .refine((t) => t.breakdownVoltage >= t.standoffVoltage, {
+    message: 'breakdown voltage must not be below the stand-off voltage',
+    path: ['breakdownVoltage'],
+  })
+  .refine((t) => t.clampVoltage > t.breakdownVoltage, {
+    message: 'clamping voltage must exceed the breakdown voltage',
+    path: ['clampVoltage'],
+  })
+  .refine((t) => t.peakPulseCurrent > (t.testCurrent ?? 1e-3), {
+    message: 'peak pulse current must exceed the breakdown test current',
+    path: ['peakPulseCurrent'],
+  });
 const varistor = z
   .strictObject({
     kind: z.literal('varistor'),
@@ -126,9 +149,20 @@ const varistor = z
     surgeEnergy: eng('J').optional(),
     maxContinuousDcVoltage: eng('V').optional(),
   })
-  .refine((v) => v.clampVoltage > v.varistorVoltage, { message: 'clamping voltage must exceed the varistor voltage at 1 mA', path: ['clampVoltage'] })
-  .refine((v) => v.clampCurrent > 1e-3, { message: 'clamping current must exceed the 1 mA varistor-voltage current', path: ['clampCurrent'] });
-const capacitor = z.strictObject({ kind: z.literal('capacitor'), id, capacitance: eng('F'), voltageRating: eng('V').optional() });
+  .refine((v) => v.clampVoltage > v.varistorVoltage, {
+    message: 'clamping voltage must exceed the varistor voltage at 1 mA',
+    path: ['clampVoltage'],
+  })
+  .refine((v) => v.clampCurrent > 1e-3, {
+    message: 'clamping current must exceed the 1 mA varistor-voltage current',
+    path: ['clampCurrent'],
+  });
+const capacitor = z.strictObject({
+  kind: z.literal('capacitor'),
+  id,
+  capacitance: eng('F'),
+  voltageRating: eng('V').optional(),
+});
 const shuntResistor = z.strictObject({
   kind: z.literal('shuntResistor'),
   id,
@@ -141,14 +175,21 @@ const SHUNT_KINDS = { railDiodes, zener, tvs, varistor, capacitor, shuntResistor
 // Dispatch on kind first so an error names the fields of the intended element, not of all six.
 const shunt = z.any().transform((raw: unknown, ctx) => {
   const kind = (raw as { kind?: unknown } | null)?.kind;
-  const schema = typeof kind === 'string' && Object.hasOwn(SHUNT_KINDS, kind) ? SHUNT_KINDS[kind as keyof typeof SHUNT_KINDS] : null;
+  const schema =
+    typeof kind === 'string' && Object.hasOwn(SHUNT_KINDS, kind)
+      ? SHUNT_KINDS[kind as keyof typeof SHUNT_KINDS]
+      : null;
   if (!schema) {
-    ctx.addIssue({ code: 'custom', message: `unknown shunt element kind ${JSON.stringify(kind)}: expected ${Object.keys(SHUNT_KINDS).join(', ')}` });
+    ctx.addIssue({
+      code: 'custom',
+      message: `unknown shunt element kind ${JSON.stringify(kind)}: expected ${Object.keys(SHUNT_KINDS).join(', ')}`,
+    });
     return z.NEVER;
   }
   const parsed = schema.safeParse(raw);
   if (!parsed.success) {
-    for (const issue of parsed.error.issues) ctx.addIssue({ code: 'custom', message: issue.message, path: issue.path });
+    for (const issue of parsed.error.issues)
+      ctx.addIssue({ code: 'custom', message: issue.message, path: issue.path });
     return z.NEVER;
   }
   return parsed.data as ShuntElement;
@@ -169,30 +210,59 @@ const input = z
     clampForwardVoltage: eng('V').optional(),
     clampForwardCurrent: eng('A').optional(),
   })
-  .refine((i) => i.positiveRail > i.negativeRail, { message: 'positive rail must be above the negative rail', path: ['positiveRail'] });
+  .refine((i) => i.positiveRail > i.negativeRail, {
+    message: 'positive rail must be above the negative rail',
+    path: ['positiveRail'],
+  });
 
 export const guardSchema = z
   .strictObject({ stages: z.array(stage).max(8), input })
   .superRefine((g, ctx) => {
     const seen = new Set<string>();
     g.stages.forEach((s, k) => {
-      for (const [path, el] of [[['stages', k, 'series', 'id'], s.series], ...s.shunts.map((sh, j) => [['stages', k, 'shunts', j, 'id'], sh] as const)] as const) {
-        if (seen.has(el.id)) ctx.addIssue({ code: 'custom', message: `duplicate element id "${el.id}"`, path: [...path] });
+      for (const [path, el] of [
+        [['stages', k, 'series', 'id'], s.series],
+        ...s.shunts.map((sh, j) => [['stages', k, 'shunts', j, 'id'], sh] as const),
+      ] as const) {
+        if (seen.has(el.id))
+          ctx.addIssue({
+            code: 'custom',
+            message: `duplicate element id "${el.id}"`,
+            path: [...path],
+          });
         seen.add(el.id);
       }
     });
   });
 
 const kindError = (allowed: string) => ({
-  error: (issue: { input?: unknown }) => `unknown kind ${JSON.stringify((issue.input as { kind?: unknown } | undefined)?.kind)}: expected one of ${allowed}`,
+  error: (issue: { input?: unknown }) =>
+    `unknown kind ${JSON.stringify((issue.input as { kind?: unknown } | undefined)?.kind)}: expected one of ${allowed}`,
 });
 
-export const stressCaseSchema = z.discriminatedUnion('kind', [
-  z.strictObject({ kind: z.literal('dc'), voltage: eng('V', 'any'), sourceResistance: eng('Ω', 'nonnegative') }),
-  z.strictObject({ kind: z.literal('ac'), rmsVoltage: eng('V', 'nonnegative'), frequency: eng('Hz'), sourceResistance: eng('Ω', 'nonnegative') }),
-  z.strictObject({ kind: z.literal('surge'), peakVoltage: eng('V', 'any'), couplingResistance: eng('Ω', 'nonnegative') }),
-  z.strictObject({ kind: z.literal('esd'), voltage: eng('V', 'any') }),
-], kindError('dc, ac, surge, esd'));
+export const stressCaseSchema = z.discriminatedUnion(
+  'kind',
+  [
+    z.strictObject({
+      kind: z.literal('dc'),
+      voltage: eng('V', 'any'),
+      sourceResistance: eng('Ω', 'nonnegative'),
+    }),
+    z.strictObject({
+      kind: z.literal('ac'),
+      rmsVoltage: eng('V', 'nonnegative'),
+      frequency: eng('Hz'),
+      sourceResistance: eng('Ω', 'nonnegative'),
+    }),
+    z.strictObject({
+      kind: z.literal('surge'),
+      peakVoltage: eng('V', 'any'),
+      couplingResistance: eng('Ω', 'nonnegative'),
+    }),
+    z.strictObject({ kind: z.literal('esd'), voltage: eng('V', 'any') }),
+  ],
+  kindError('dc, ac, surge, esd'),
+);
 
 export const stressConditionsSchema = z.strictObject({
   ambientC: z.union([z.number(), z.string()]).transform((raw, ctx): number => {
@@ -215,11 +285,18 @@ export const stressRequestSchema = z
     guard: guardSchema,
     case: stressCaseSchema.optional(),
     cases: z.array(stressCaseSchema).min(1).max(64).optional(),
-    conditions: stressConditionsSchema.default({ ambientC: 40, powerDerating: 0.5, voltageDerating: 0.8 }),
+    conditions: stressConditionsSchema.default({
+      ambientC: 40,
+      powerDerating: 0.5,
+      voltageDerating: 0.8,
+    }),
     waveform: z.boolean().optional(),
     maxWaveformPoints: z.number().int().min(2).max(100000).optional(),
   })
-  .refine((r) => (r.case === undefined) !== (r.cases === undefined), { message: 'give exactly one of "case" or "cases"', path: ['case'] });
+  .refine((r) => (r.case === undefined) !== (r.cases === undefined), {
+    message: 'give exactly one of "case" or "cases"',
+    path: ['case'],
+  });
 
 export interface StressRequest {
   guard: Guard;

@@ -62,7 +62,11 @@ function esdStatic(solver: LadderSolver, recorder: Recorder, charge: number): vo
   for (let j = tipNodes; j >= 1; j--) {
     const q = j / tipNodes;
     const vt = equilibrium + (charge - equilibrium) * q * q;
-    const width = Math.abs(charge - equilibrium) * ((j === tipNodes ? 0 : ((j + 1) / tipNodes) ** 2 - q * q) + (q * q - ((j - 1) / tipNodes) ** 2)) * 0.5;
+    const width =
+      Math.abs(charge - equilibrium) *
+      ((j === tipNodes ? 0 : ((j + 1) / tipNodes) ** 2 - q * q) +
+        (q * q - ((j - 1) / tipNodes) ** 2)) *
+      0.5;
     solver.solve(combinedR * (charge / rBody + vt / rTip), combinedR);
     const iTip = Math.abs((vt - solver.terminalVoltage) / rTip);
     const weight = iTip > 0 ? (ESD_TIP_CAPACITANCE * width) / iTip : 0;
@@ -76,7 +80,8 @@ function esdStatic(solver: LadderSolver, recorder: Recorder, charge: number): vo
   // Body: Vc from the full charge down to 0 on knee-refined nodes, weight = C·w/|i| with w the
   // quadrature weight in Vc (Simpson on smooth triples, trapezoid around the knees); the
   // charge the tip still holds at Vt* discharges with the body, so it joins the body's C.
-  const bodyCapacitance = ESD_CAPACITANCE + (charge !== 0 ? ESD_TIP_CAPACITANCE * (equilibrium / charge) : 0);
+  const bodyCapacitance =
+    ESD_CAPACITANCE + (charge !== 0 ? ESD_TIP_CAPACITANCE * (equilibrium / charge) : 0);
   const { nodes, smooth } = esdNodes(solver.net, charge);
   const w = quadratureWeights(nodes.map(Math.abs), smooth);
   let peak = 0;
@@ -99,7 +104,8 @@ const SURGE_BASE_LEVELS = 16;
 function surgeLevels(net: CompiledNetwork, peak: number): { levels: number[]; smooth: boolean[] } {
   const magnitude = Math.abs(peak);
   const values: [number, boolean][] = [];
-  for (let j = 0; j <= SURGE_BASE_LEVELS; j++) values.push([0.5 - 0.5 * Math.cos((Math.PI * j) / SURGE_BASE_LEVELS), true]);
+  for (let j = 0; j <= SURGE_BASE_LEVELS; j++)
+    values.push([0.5 - 0.5 * Math.cos((Math.PI * j) / SURGE_BASE_LEVELS), true]);
   if (magnitude > 0) {
     for (const knee of clampKnees(net, peak < 0 ? -1 : 1)) {
       for (const f of ESD_KNEE_FACTORS) {
@@ -193,7 +199,10 @@ function clampKnees(net: CompiledNetwork, sign: number): number[] {
     if (type === BRANCH_JUNCTION) {
       const dir = net.branchDirection[b];
       if (dir !== sign) continue;
-      const u = net.branchOffset[b] + net.branchNvt[b] * Math.log1p(1e-4 / net.branchIsat[b]) + 1e-4 * net.branchRs[b];
+      const u =
+        net.branchOffset[b] +
+        net.branchNvt[b] * Math.log1p(1e-4 / net.branchIsat[b]) +
+        1e-4 * net.branchRs[b];
       knees.push(Math.abs(net.branchReference[b] + dir * u));
     } else if (type === 2) {
       knees.push(net.branchV1[b]);
@@ -336,7 +345,8 @@ class Recorder {
     cur.fill(0);
     sim.samples++;
     if (Math.abs(vs) > sim.sourcePeakVoltage) sim.sourcePeakVoltage = Math.abs(vs);
-    if (Math.abs(s.sourceCurrent) > sim.sourcePeakCurrent) sim.sourcePeakCurrent = Math.abs(s.sourceCurrent);
+    if (Math.abs(s.sourceCurrent) > sim.sourcePeakCurrent)
+      sim.sourcePeakCurrent = Math.abs(s.sourceCurrent);
     const nodes = net.nodeCount;
     const inputV = s.v[nodes - 1];
     if (inputV > sim.inputMaxV) sim.inputMaxV = inputV;
@@ -383,7 +393,8 @@ class Recorder {
       else if (rail < 0) railNegative -= i;
     }
     if (currentElement >= 0) this.accumulateElement(currentElement, elV, elI, elP);
-    if (Math.abs(inputCurrent) > sim.inputPeakCurrent) sim.inputPeakCurrent = Math.abs(inputCurrent);
+    if (Math.abs(inputCurrent) > sim.inputPeakCurrent)
+      sim.inputPeakCurrent = Math.abs(inputCurrent);
     railPositive = Math.max(railPositive, 0);
     railNegative = Math.max(railNegative, 0);
     if (railPositive > sim.railPeak[0]) sim.railPeak[0] = railPositive;
@@ -439,7 +450,10 @@ class Recorder {
         nodeVoltages: Array.from(s.v),
         seriesCurrents: Array.from(s.seriesCurrent),
         branchCurrents: Array.from(s.branchCurrent),
-        companion: Array.from(s.companionConductance, (g, b) => [g, s.companionReference[b]] as [number, number]),
+        companion: Array.from(
+          s.companionConductance,
+          (g, b) => [g, s.companionReference[b]] as [number, number],
+        ),
       });
     }
   }
@@ -484,10 +498,14 @@ class Recorder {
     const names = this.waveNames();
     const count = this.waveT.length;
     const stride = Math.max(1, Math.ceil(count / Math.max(2, maxPoints)));
-    const pick = <T,>(list: T[]): T[] => list.filter((_, k) => k % stride === 0 || k === count - 1);
+    const pick = <T>(list: T[]): T[] => list.filter((_, k) => k % stride === 0 || k === count - 1);
     this.sim.waveform = {
       t: pick(this.waveT),
-      traces: names.map((n, k) => ({ name: n.name, unit: n.unit, values: pick(this.waveValues[k]) })),
+      traces: names.map((n, k) => ({
+        name: n.name,
+        unit: n.unit,
+        values: pick(this.waveValues[k]),
+      })),
     };
   }
 }
@@ -534,7 +552,12 @@ interface StepPlan {
   maxSteps: number;
 }
 
-function stepThrough(solver: LadderSolver, recorder: Recorder, source: SteppedSource, plan: StepPlan): number {
+function stepThrough(
+  solver: LadderSolver,
+  recorder: Recorder,
+  source: SteppedSource,
+  plan: StepPlan,
+): number {
   const net = solver.net;
   let t = 0;
   // t = 0+: uncharged capacitors hold 0 V (backward Euler with a vanishing step is a short to 0).
@@ -570,7 +593,8 @@ function stepThrough(solver: LadderSolver, recorder: Recorder, source: SteppedSo
     // Limit the next step by the relative change seen over this one (≈ 5 % per step).
     const rel = Math.max(
       Math.abs(current - lastCurrent) / Math.max(Math.abs(current), 1e-3 * peakSource, 1e-30),
-      Math.abs(terminal - lastTerminal) / Math.max(Math.abs(terminal), Math.abs(lastTerminal), 1e-9),
+      Math.abs(terminal - lastTerminal) /
+        Math.max(Math.abs(terminal), Math.abs(lastTerminal), 1e-9),
     );
     lastCurrent = current;
     lastTerminal = terminal;
@@ -578,7 +602,10 @@ function stepThrough(solver: LadderSolver, recorder: Recorder, source: SteppedSo
     if (rel > 0.05) next = Math.min(next, step * Math.max(0.5, 0.05 / rel));
     h = Math.min(Math.max(next, plan.h0), plan.hMax);
   }
-  if (steps >= plan.maxSteps) recorder.sim.notes.push(`integration stopped after ${plan.maxSteps} steps at ${t.toExponential(3)} s`);
+  if (steps >= plan.maxSteps)
+    recorder.sim.notes.push(
+      `integration stopped after ${plan.maxSteps} steps at ${t.toExponential(3)} s`,
+    );
   return t;
 }
 
@@ -604,7 +631,12 @@ function capacitorTimeConstant(net: CompiledNetwork, sourceResistance: number): 
 }
 
 /** Applied sign: a hazard on the return terminal reverses the polarity the guard sees. */
-export function simulate(net: CompiledNetwork, stressCase: StressCase, sign: 1 | -1, options: SimulationOptions = {}): Simulation {
+export function simulate(
+  net: CompiledNetwork,
+  stressCase: StressCase,
+  sign: 1 | -1,
+  options: SimulationOptions = {},
+): Simulation {
   const solver = new LadderSolver(net);
   const steady = stressCase.kind === 'dc' || stressCase.kind === 'ac';
   const recorder = new Recorder(solver, steady, options);
@@ -624,7 +656,8 @@ export function simulate(net: CompiledNetwork, stressCase: StressCase, sign: 1 |
       const rs = stressCase.sourceResistance;
       const period = 1 / stressCase.frequency;
       if (net.capacitorCount === 0) {
-        const quarter = options.acQuarterSamples ?? (options.waveform ? 90 : DEFAULT_AC_QUARTER_SAMPLES);
+        const quarter =
+          options.acQuarterSamples ?? (options.waveform ? 90 : DEFAULT_AC_QUARTER_SAMPLES);
         const h = period / (4 * quarter);
         if (options.waveform || options.trace) {
           // full cycle in time order (same sums as the symmetric plan)
@@ -650,7 +683,9 @@ export function simulate(net: CompiledNetwork, stressCase: StressCase, sign: 1 |
         const tau = capacitorTimeConstant(net, rs);
         const settleCycles = Math.min(MAX_SETTLE_CYCLES, Math.ceil((5 * tau) / period));
         if (settleCycles === MAX_SETTLE_CYCLES) {
-          sim.notes.push(`capacitor time constant is long against the period: steady state approximated after ${MAX_SETTLE_CYCLES} cycles`);
+          sim.notes.push(
+            `capacitor time constant is long against the period: steady state approximated after ${MAX_SETTLE_CYCLES} cycles`,
+          );
         }
         let steps = 0;
         updateCompanionsInitial(solver);
@@ -662,7 +697,8 @@ export function simulate(net: CompiledNetwork, stressCase: StressCase, sign: 1 |
           const t = m * h;
           const vs = peak * Math.sin(2 * Math.PI * stressCase.frequency * t);
           solver.solve(vs, rs);
-          if (m > settleCycles * stepsPerCycle) recorder.record(t - settleCycles * period, vs, rs, h);
+          if (m > settleCycles * stepsPerCycle)
+            recorder.record(t - settleCycles * period, vs, rs, h);
         }
       }
       sim.duration = period;
@@ -671,7 +707,12 @@ export function simulate(net: CompiledNetwork, stressCase: StressCase, sign: 1 |
     case 'surge': {
       const peak = sign * stressCase.peakVoltage;
       const rs = SURGE_GENERATOR_IMPEDANCE + stressCase.couplingResistance;
-      if (net.capacitorCount === 0 && !options.waveform && !options.trace && !options.forceTimeStepping) {
+      if (
+        net.capacitorCount === 0 &&
+        !options.waveform &&
+        !options.trace &&
+        !options.forceTimeStepping
+      ) {
         // Static network: each quantity is a function of the source level u = v/peak only,
         // so ∫ f(peak·s(t)) dt = Σ W_j f(peak·u_j) with the waveform's level weights W_j,
         // on Chebyshev-spaced levels plus clusters just above each clamp's knee.
@@ -702,14 +743,26 @@ export function simulate(net: CompiledNetwork, stressCase: StressCase, sign: 1 |
       break;
     }
     case 'esd': {
-      if (net.capacitorCount === 0 && !options.waveform && !options.trace && !options.forceTimeStepping) {
+      if (
+        net.capacitorCount === 0 &&
+        !options.waveform &&
+        !options.trace &&
+        !options.forceTimeStepping
+      ) {
         esdStatic(solver, recorder, sign * stressCase.voltage);
         break;
       }
       // Each generator branch (150 pF / 330 Ω body, and the tip branch) is a charged capacitor
       // in series with its resistor; its trapezoidal (or backward Euler) companion is a
       // Thevenin source per step, and the branches in parallel combine into one.
-      const branches = ESD_BRANCHES.map((b) => ({ c: b.capacitance, r: b.resistance, v: sign * stressCase.voltage, i: 0, veq: 0, req: 0 }));
+      const branches = ESD_BRANCHES.map((b) => ({
+        c: b.capacitance,
+        r: b.resistance,
+        v: sign * stressCase.voltage,
+        i: 0,
+        veq: 0,
+        req: 0,
+      }));
       let pendingH = 0;
       let pendingTrap = false;
       const c = ESD_CAPACITANCE;
@@ -738,7 +791,8 @@ export function simulate(net: CompiledNetwork, stressCase: StressCase, sign: 1 |
         commit: (_current, terminal) => {
           for (const b of branches) {
             const i = (b.veq - terminal) / b.req;
-            if (pendingH > 0) b.v -= pendingTrap ? (pendingH / (2 * b.c)) * (i + b.i) : (pendingH / b.c) * i;
+            if (pendingH > 0)
+              b.v -= pendingTrap ? (pendingH / (2 * b.c)) * (i + b.i) : (pendingH / b.c) * i;
             b.i = i;
           }
         },

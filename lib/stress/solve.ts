@@ -61,7 +61,12 @@ export const FUSE_CREDIT_TIME = 10e-3;
  * opens and what the other parts see before it does depend on the phase at which the fault
  * starts, so they are judged as if it persisted (conservative).
  */
-function fuseOpening(net: CompiledNetwork, sim: Simulation, sourceVoltage: number, stressCase: StressCase): { id: string; time: number } | null {
+function fuseOpening(
+  net: CompiledNetwork,
+  sim: Simulation,
+  sourceVoltage: number,
+  stressCase: StressCase,
+): { id: string; time: number } | null {
   if (stressCase.kind !== 'dc') return null;
   let best: { id: string; time: number } | null = null;
   net.elements.forEach((info, index) => {
@@ -72,7 +77,8 @@ function fuseOpening(net: CompiledNetwork, sim: Simulation, sourceVoltage: numbe
     // interrupting beyond its voltage rating is not credited (the fuse itself fails its check)
     if (el.voltageRating === undefined || sourceVoltage > el.voltageRating) return;
     const time = el.meltingI2t / (f.rmsI * f.rmsI);
-    if (time <= FUSE_CREDIT_TIME && (best === null || time < best.time)) best = { id: info.id, time };
+    if (time <= FUSE_CREDIT_TIME && (best === null || time < best.time))
+      best = { id: info.id, time };
   });
   return best;
 }
@@ -107,7 +113,12 @@ interface ElementFigures {
   sourceVoltage: number; // rms (AC) or |V| (DC) or peak (pulses) of the applied hazard
 }
 
-function figuresOf(sim: Simulation, net: CompiledNetwork, index: number, sourceVoltage: number): ElementFigures {
+function figuresOf(
+  sim: Simulation,
+  net: CompiledNetwork,
+  index: number,
+  sourceVoltage: number,
+): ElementFigures {
   const d = sim.duration > 0 ? sim.duration : 1;
   const energy = sim.energy[index];
   const peakP = sim.peakP[index];
@@ -143,7 +154,12 @@ const S = (x: number) => formatEng(x, 's');
 
 function resistorChecks(
   id: string,
-  el: { ratedPower?: number; limitingVoltage?: number; overloadVoltage?: number; pulseEnergy?: number },
+  el: {
+    ratedPower?: number;
+    limitingVoltage?: number;
+    overloadVoltage?: number;
+    pulseEnergy?: number;
+  },
   f: ElementFigures,
   c: StressConditions,
 ): RatingCheck[] {
@@ -187,8 +203,21 @@ function resistorChecks(
           unit: 'V',
         }),
       );
-    } else if (el.limitingVoltage !== undefined && f.peakV <= el.limitingVoltage * c.voltageDerating) {
-      out.push(check({ quantity: 'voltage', value: f.peakV, rating: el.limitingVoltage, temperatureFactor: 1, margin: c.voltageDerating, label: `${id}: pulse voltage`, unit: 'V' }));
+    } else if (
+      el.limitingVoltage !== undefined &&
+      f.peakV <= el.limitingVoltage * c.voltageDerating
+    ) {
+      out.push(
+        check({
+          quantity: 'voltage',
+          value: f.peakV,
+          rating: el.limitingVoltage,
+          temperatureFactor: 1,
+          margin: c.voltageDerating,
+          label: `${id}: pulse voltage`,
+          unit: 'V',
+        }),
+      );
     } else {
       out.push(
         note(
@@ -200,20 +229,48 @@ function resistorChecks(
       );
     }
     if (el.pulseEnergy !== undefined) {
-      out.push(check({ quantity: 'energy', value: f.energy, rating: el.pulseEnergy, temperatureFactor: 1, margin: c.powerDerating, label: `${id}: pulse energy`, unit: 'J' }));
+      out.push(
+        check({
+          quantity: 'energy',
+          value: f.energy,
+          rating: el.pulseEnergy,
+          temperatureFactor: 1,
+          margin: c.powerDerating,
+          label: `${id}: pulse energy`,
+          unit: 'J',
+        }),
+      );
     } else if (el.ratedPower !== undefined && f.peakP <= el.ratedPower * tf * c.powerDerating) {
       // A resistor that may dissipate P continuously survives a pulse whose peak power is below P.
-      out.push(note('energy', f.energy, 'holds', `${id}: ${J(f.energy)} pulse at ${W(f.peakP)} peak, within its continuous rating`, el.ratedPower));
+      out.push(
+        note(
+          'energy',
+          f.energy,
+          'holds',
+          `${id}: ${J(f.energy)} pulse at ${W(f.peakP)} peak, within its continuous rating`,
+          el.ratedPower,
+        ),
+      );
     } else {
       out.push(
-        note('energy', f.energy, 'incomplete', `${id}: ${J(f.energy)} pulse (${W(f.peakP)} peak, ${S(f.halfValueTime)} half-value); single-pulse energy rating not given`),
+        note(
+          'energy',
+          f.energy,
+          'incomplete',
+          `${id}: ${J(f.energy)} pulse (${W(f.peakP)} peak, ${S(f.halfValueTime)} half-value); single-pulse energy rating not given`,
+        ),
       );
     }
   }
   return out;
 }
 
-function elementChecks(info: ElementInfo, f: ElementFigures, c: StressConditions, caseKind: StressCase['kind']): RatingCheck[] {
+function elementChecks(
+  info: ElementInfo,
+  f: ElementFigures,
+  c: StressConditions,
+  caseKind: StressCase['kind'],
+): RatingCheck[] {
   const el = info.element!;
   const id = info.id;
   const st = semiconductorTemperatureFactor(c.ambientC);
@@ -222,7 +279,14 @@ function elementChecks(info: ElementInfo, f: ElementFigures, c: StressConditions
     case 'shuntResistor':
       return resistorChecks(id, el, f, c);
     case 'wire':
-      return [note('current', f.peakI, 'holds', `${id}: ${A(f.peakI)} peak; wiring has no rating to check here`)];
+      return [
+        note(
+          'current',
+          f.peakI,
+          'holds',
+          `${id}: ${A(f.peakI)} peak; wiring has no rating to check here`,
+        ),
+      ];
     case 'fuse': {
       if (f.steady) {
         const opens = f.rmsI >= FUSE_SURE_OPEN_FACTOR * el.ratedCurrent;
@@ -238,7 +302,10 @@ function elementChecks(info: ElementInfo, f: ElementFigures, c: StressConditions
           ];
         }
         const time = el.meltingI2t !== undefined ? el.meltingI2t / (f.rmsI * f.rmsI) : null;
-        const when = time !== null ? `in about ${S(time)} (melting I²t ${formatEng(el.meltingI2t!, 'A²s')})` : '(opening time unknown: melting I²t not given)';
+        const when =
+          time !== null
+            ? `in about ${S(time)} (melting I²t ${formatEng(el.meltingI2t!, 'A²s')})`
+            : '(opening time unknown: melting I²t not given)';
         const checks: RatingCheck[] = [
           note(
             'current',
@@ -248,7 +315,11 @@ function elementChecks(info: ElementInfo, f: ElementFigures, c: StressConditions
               time !== null && time <= FUSE_CREDIT_TIME && caseKind === 'dc'
                 ? 'the rest of the network is judged for that time'
                 : `the rest of the network is judged as if the fault persisted (${
-                    caseKind === 'ac' ? 'on AC the time depends on the phase the fault starts at' : time !== null ? `beyond ${S(FUSE_CREDIT_TIME)} the melting I²t does not give the opening time` : 'conservative'
+                    caseKind === 'ac'
+                      ? 'on AC the time depends on the phase the fault starts at'
+                      : time !== null
+                        ? `beyond ${S(FUSE_CREDIT_TIME)} the melting I²t does not give the opening time`
+                        : 'conservative'
                   })`
             }`,
             el.ratedCurrent,
@@ -269,23 +340,82 @@ function elementChecks(info: ElementInfo, f: ElementFigures, c: StressConditions
         return checks;
       }
       if (el.meltingI2t === undefined) {
-        return [note('i2t', f.i2t, 'incomplete', `${id}: pulse I²t ${formatEng(f.i2t, 'A²s')}; melting I²t not given`)];
+        return [
+          note(
+            'i2t',
+            f.i2t,
+            'incomplete',
+            `${id}: pulse I²t ${formatEng(f.i2t, 'A²s')}; melting I²t not given`,
+          ),
+        ];
       }
       if (f.i2t >= el.meltingI2t) {
-        return [note('i2t', f.i2t, 'marginal', `${id}: pulse I²t ${formatEng(f.i2t, 'A²s')} reaches the ${formatEng(el.meltingI2t, 'A²s')} melting I²t: the fuse opens (channel protected, fuse to be replaced)`, el.meltingI2t)];
+        return [
+          note(
+            'i2t',
+            f.i2t,
+            'marginal',
+            `${id}: pulse I²t ${formatEng(f.i2t, 'A²s')} reaches the ${formatEng(el.meltingI2t, 'A²s')} melting I²t: the fuse opens (channel protected, fuse to be replaced)`,
+            el.meltingI2t,
+          ),
+        ];
       }
-      return [check({ quantity: 'i2t', value: f.i2t, rating: el.meltingI2t, temperatureFactor: 1, margin: 1, label: `${id}: pulse I²t`, unit: 'A²s' })];
+      return [
+        check({
+          quantity: 'i2t',
+          value: f.i2t,
+          rating: el.meltingI2t,
+          temperatureFactor: 1,
+          margin: 1,
+          label: `${id}: pulse I²t`,
+          unit: 'A²s',
+        }),
+      ];
     }
     case 'ptc': {
       if (!f.steady) {
-        if (el.maxVoltage === undefined) return [note('voltage', f.peakV, 'holds', `${id}: ${V(f.peakV)} across during the pulse (too short to trip)`)];
-        return [check({ quantity: 'voltage', value: f.peakV, rating: el.maxVoltage, temperatureFactor: 1, margin: c.voltageDerating, label: `${id}: pulse voltage`, unit: 'V' })];
+        if (el.maxVoltage === undefined)
+          return [
+            note(
+              'voltage',
+              f.peakV,
+              'holds',
+              `${id}: ${V(f.peakV)} across during the pulse (too short to trip)`,
+            ),
+          ];
+        return [
+          check({
+            quantity: 'voltage',
+            value: f.peakV,
+            rating: el.maxVoltage,
+            temperatureFactor: 1,
+            margin: c.voltageDerating,
+            label: `${id}: pulse voltage`,
+            unit: 'V',
+          }),
+        ];
       }
       if (f.rmsI < el.holdCurrent) {
-        return [note('current', f.rmsI, 'holds', `${id}: ${A(f.rmsI)} rms is below its ${A(el.holdCurrent)} hold current: it does not trip; the rest of the network must withstand the fault continuously`, el.holdCurrent)];
+        return [
+          note(
+            'current',
+            f.rmsI,
+            'holds',
+            `${id}: ${A(f.rmsI)} rms is below its ${A(el.holdCurrent)} hold current: it does not trip; the rest of the network must withstand the fault continuously`,
+            el.holdCurrent,
+          ),
+        ];
       }
       if (f.rmsI < el.tripCurrent) {
-        return [note('current', f.rmsI, 'holds', `${id}: ${A(f.rmsI)} rms lies between hold ${A(el.holdCurrent)} and trip ${A(el.tripCurrent)}: it may not trip; the rest of the network must withstand the fault continuously`, el.tripCurrent)];
+        return [
+          note(
+            'current',
+            f.rmsI,
+            'holds',
+            `${id}: ${A(f.rmsI)} rms lies between hold ${A(el.holdCurrent)} and trip ${A(el.tripCurrent)}: it may not trip; the rest of the network must withstand the fault continuously`,
+            el.tripCurrent,
+          ),
+        ];
       }
       const out: RatingCheck[] = [
         check({
@@ -300,41 +430,122 @@ function elementChecks(info: ElementInfo, f: ElementFigures, c: StressConditions
         }),
       ];
       if (el.maxCurrent !== undefined) {
-        out.push(check({ quantity: 'current', value: f.peakI, rating: el.maxCurrent, temperatureFactor: 1, margin: 1, label: `${id}: fault current`, unit: 'A' }));
+        out.push(
+          check({
+            quantity: 'current',
+            value: f.peakI,
+            rating: el.maxCurrent,
+            temperatureFactor: 1,
+            margin: 1,
+            label: `${id}: fault current`,
+            unit: 'A',
+          }),
+        );
       }
       return out;
     }
     case 'railDiodes': {
       if (f.steady) {
         if (el.averageCurrent === undefined && f.diodeAverage <= NEGLIGIBLE_CURRENT) {
-          return [note('current', f.diodeAverage, 'holds', `${id}: no significant current (${A(f.diodeAverage)} average per diode)`)];
+          return [
+            note(
+              'current',
+              f.diodeAverage,
+              'holds',
+              `${id}: no significant current (${A(f.diodeAverage)} average per diode)`,
+            ),
+          ];
         }
-        return [check({ quantity: 'current', value: f.diodeAverage, rating: el.averageCurrent, temperatureFactor: st, margin: c.powerDerating, label: `${id}: average current per diode`, unit: 'A', missing: 'average current rating not given' })];
+        return [
+          check({
+            quantity: 'current',
+            value: f.diodeAverage,
+            rating: el.averageCurrent,
+            temperatureFactor: st,
+            margin: c.powerDerating,
+            label: `${id}: average current per diode`,
+            unit: 'A',
+            missing: 'average current rating not given',
+          }),
+        ];
       }
       if (el.surgeCurrent !== undefined) {
         // The surge rating is for a longer pulse (8.3 ms): applied unscaled to shorter pulses (conservative).
-        return [check({ quantity: 'surgeCurrent', value: f.diodePeak, rating: el.surgeCurrent, temperatureFactor: st, margin: c.powerDerating, label: `${id}: peak current per diode`, unit: 'A' })];
+        return [
+          check({
+            quantity: 'surgeCurrent',
+            value: f.diodePeak,
+            rating: el.surgeCurrent,
+            temperatureFactor: st,
+            margin: c.powerDerating,
+            label: `${id}: peak current per diode`,
+            unit: 'A',
+          }),
+        ];
       }
-      if (el.averageCurrent !== undefined && f.diodePeak <= el.averageCurrent * st * c.powerDerating) {
-        return [note('surgeCurrent', f.diodePeak, 'holds', `${id}: ${A(f.diodePeak)} peak per diode, within its continuous current rating`, el.averageCurrent)];
+      if (
+        el.averageCurrent !== undefined &&
+        f.diodePeak <= el.averageCurrent * st * c.powerDerating
+      ) {
+        return [
+          note(
+            'surgeCurrent',
+            f.diodePeak,
+            'holds',
+            `${id}: ${A(f.diodePeak)} peak per diode, within its continuous current rating`,
+            el.averageCurrent,
+          ),
+        ];
       }
       if (el.averageCurrent === undefined && f.diodePeak <= NEGLIGIBLE_CURRENT) {
         return [note('surgeCurrent', f.diodePeak, 'holds', `${id}: no significant current`)];
       }
-      return [note('surgeCurrent', f.diodePeak, 'incomplete', `${id}: ${A(f.diodePeak)} peak per diode; surge current rating not given`)];
+      return [
+        note(
+          'surgeCurrent',
+          f.diodePeak,
+          'incomplete',
+          `${id}: ${A(f.diodePeak)} peak per diode; surge current rating not given`,
+        ),
+      ];
     }
     case 'zener': {
       if (f.steady) {
         if (el.powerRating === undefined && f.average <= NEGLIGIBLE_POWER * 1e-3) {
           return [note('power', f.average, 'holds', `${id}: no significant dissipation`)];
         }
-        const ch = check({ quantity: 'power', value: f.average, rating: el.powerRating, temperatureFactor: st, margin: c.powerDerating, label: `${id}: ${W(f.peakP)} peak /`, suffix: 'average', unit: 'W', missing: 'power rating not given' });
+        const ch = check({
+          quantity: 'power',
+          value: f.average,
+          rating: el.powerRating,
+          temperatureFactor: st,
+          margin: c.powerDerating,
+          label: `${id}: ${W(f.peakP)} peak /`,
+          suffix: 'average',
+          unit: 'W',
+          missing: 'power rating not given',
+        });
         return [ch];
       }
       if (el.powerRating !== undefined && f.peakP <= el.powerRating * st * c.powerDerating) {
-        return [note('power', f.peakP, 'holds', `${id}: ${W(f.peakP)} peak pulse power, within its continuous rating`, el.powerRating)];
+        return [
+          note(
+            'power',
+            f.peakP,
+            'holds',
+            `${id}: ${W(f.peakP)} peak pulse power, within its continuous rating`,
+            el.powerRating,
+          ),
+        ];
       }
-      return [note('pulsePower', f.peakP, 'incomplete', `${id}: ${W(f.peakP)} peak, ${J(f.energy)} pulse; a zener pulse rating is needed to judge this`)];
+      return [
+        note(
+          'pulsePower',
+          f.peakP,
+          'incomplete',
+          `${id}: ${W(f.peakP)} peak, ${J(f.energy)} pulse; a zener pulse rating is needed to judge this`,
+        ),
+      ];
     }
     case 'tvs': {
       const pppm = el.peakPulsePower ?? el.clampVoltage * el.peakPulseCurrent;
@@ -342,15 +553,49 @@ function elementChecks(info: ElementInfo, f: ElementFigures, c: StressConditions
         // Conduction in either direction (breakdown, or forward for a unidirectional part) is
         // judged on power first: a forward-biased TVS can carry a large current at 1 V.
         if (el.steadyPower !== undefined && f.average > NEGLIGIBLE_POWER) {
-          return [check({ quantity: 'power', value: f.average, rating: el.steadyPower, temperatureFactor: st, margin: c.powerDerating, label: `${id}: ${W(f.peakP)} peak /`, suffix: 'average', unit: 'W' })];
+          return [
+            check({
+              quantity: 'power',
+              value: f.average,
+              rating: el.steadyPower,
+              temperatureFactor: st,
+              margin: c.powerDerating,
+              label: `${id}: ${W(f.peakP)} peak /`,
+              suffix: 'average',
+              unit: 'W',
+            }),
+          ];
         }
         if (f.average > NEGLIGIBLE_POWER) {
-          return [note('power', f.average, 'fails', `${id}: conducts ${W(f.average)} average (${A(f.peakI)} peak) continuously; a TVS is not rated for a continuous fault and fails short`)];
+          return [
+            note(
+              'power',
+              f.average,
+              'fails',
+              `${id}: conducts ${W(f.average)} average (${A(f.peakI)} peak) continuously; a TVS is not rated for a continuous fault and fails short`,
+            ),
+          ];
         }
         if (f.peakV <= el.standoffVoltage) {
-          return [note('voltage', f.peakV, 'holds', `${id}: ${V(f.peakV)} peak stays below its ${V(el.standoffVoltage)} stand-off voltage`, el.standoffVoltage)];
+          return [
+            note(
+              'voltage',
+              f.peakV,
+              'holds',
+              `${id}: ${V(f.peakV)} peak stays below its ${V(el.standoffVoltage)} stand-off voltage`,
+              el.standoffVoltage,
+            ),
+          ];
         }
-        return [note('voltage', f.peakV, 'marginal', `${id}: ${V(f.peakV)} peak exceeds its ${V(el.standoffVoltage)} stand-off voltage (${W(f.average)} average)`, el.standoffVoltage)];
+        return [
+          note(
+            'voltage',
+            f.peakV,
+            'marginal',
+            `${id}: ${V(f.peakV)} peak exceeds its ${V(el.standoffVoltage)} stand-off voltage (${W(f.average)} average)`,
+            el.standoffVoltage,
+          ),
+        ];
       }
       const factor = tvsPulseFactor(f.halfValueTime);
       return [
@@ -368,8 +613,20 @@ function elementChecks(info: ElementInfo, f: ElementFigures, c: StressConditions
     case 'varistor': {
       if (f.steady) {
         const isAc = caseKind === 'ac';
-        const rating = isAc ? el.maxContinuousVoltage : (el.maxContinuousDcVoltage ?? el.maxContinuousVoltage);
-        return [check({ quantity: 'voltage', value: f.rmsV, rating, temperatureFactor: 1, margin: c.voltageDerating, label: `${id}: continuous ${isAc ? 'rms ' : ''}voltage`, unit: 'V' })];
+        const rating = isAc
+          ? el.maxContinuousVoltage
+          : (el.maxContinuousDcVoltage ?? el.maxContinuousVoltage);
+        return [
+          check({
+            quantity: 'voltage',
+            value: f.rmsV,
+            rating,
+            temperatureFactor: 1,
+            margin: c.voltageDerating,
+            label: `${id}: continuous ${isAc ? 'rms ' : ''}voltage`,
+            unit: 'V',
+          }),
+        ];
       }
       const out: RatingCheck[] = [];
       const tf = varistorTemperatureFactor(c.ambientC);
@@ -387,12 +644,33 @@ function elementChecks(info: ElementInfo, f: ElementFigures, c: StressConditions
         }),
       );
       if (el.surgeEnergy !== undefined) {
-        out.push(check({ quantity: 'energy', value: f.energy, rating: el.surgeEnergy, temperatureFactor: tf, margin: c.powerDerating, label: `${id}: pulse energy`, unit: 'J' }));
+        out.push(
+          check({
+            quantity: 'energy',
+            value: f.energy,
+            rating: el.surgeEnergy,
+            temperatureFactor: tf,
+            margin: c.powerDerating,
+            label: `${id}: pulse energy`,
+            unit: 'J',
+          }),
+        );
       }
       return out;
     }
     case 'capacitor':
-      return [check({ quantity: 'voltage', value: f.peakV, rating: el.voltageRating, temperatureFactor: 1, margin: c.voltageDerating, label: `${id}: peak voltage`, unit: 'V', missing: 'voltage rating not given' })];
+      return [
+        check({
+          quantity: 'voltage',
+          value: f.peakV,
+          rating: el.voltageRating,
+          temperatureFactor: 1,
+          margin: c.voltageDerating,
+          label: `${id}: peak voltage`,
+          unit: 'V',
+          missing: 'voltage rating not given',
+        }),
+      ];
   }
 }
 
@@ -406,9 +684,11 @@ function combine(checks: RatingCheck[], fallback: string): { verdict: Verdict; r
 function limitsCurrent(guard: Guard): boolean {
   let series = 0;
   for (const stage of guard.stages) {
-    if (stage.series.kind !== 'fuse' && stage.series.kind !== 'wire') series += stage.series.resistance;
+    if (stage.series.kind !== 'fuse' && stage.series.kind !== 'wire')
+      series += stage.series.resistance;
     else if (stage.series.kind === 'fuse') return true; // a fuse limits the fault's duration
-    for (const shunt of stage.shunts) if (shunt.kind !== 'capacitor' && shunt.kind !== 'shuntResistor') return true;
+    for (const shunt of stage.shunts)
+      if (shunt.kind !== 'capacitor' && shunt.kind !== 'shuntResistor') return true;
   }
   return series >= 1;
 }
@@ -430,7 +710,11 @@ export function solveWithNetwork(
   };
   const sim = simulate(net, stressCase, sign, simOptions);
   const sourceVoltage =
-    stressCase.kind === 'ac' ? stressCase.rmsVoltage : stressCase.kind === 'dc' ? Math.abs(stressCase.voltage) : sim.sourcePeakVoltage;
+    stressCase.kind === 'ac'
+      ? stressCase.rmsVoltage
+      : stressCase.kind === 'dc'
+        ? Math.abs(stressCase.voltage)
+        : sim.sourcePeakVoltage;
 
   const elements: ElementStress[] = [];
   // A fuse that opens on a steady fault within the melting-I²t range ends the fault for every
@@ -442,7 +726,9 @@ export function solveWithNetwork(
     const credited = opening !== null && info.kind !== 'fuse';
     if (credited) f = asPulse(f, opening.time);
     const checks = elementChecks(info, f, conditions, stressCase.kind);
-    if (credited) for (const ch of checks) if (ch.reason) ch.reason += ` (for the ${S(opening.time)} until ${opening.id} opens)`;
+    if (credited)
+      for (const ch of checks)
+        if (ch.reason) ch.reason += ` (for the ${S(opening.time)} until ${opening.id} opens)`;
     const { verdict, reason } = combine(checks, `${info.id}: no rating applies`);
     const isRailPair = info.kind === 'railDiodes';
     elements.push({
@@ -471,15 +757,33 @@ export function solveWithNetwork(
   const peakInputV = Math.max(Math.abs(sim.inputMaxV), Math.abs(sim.inputMinV));
   let clampPeak = 0;
   for (let b = 0; b < net.branchType.length; b++) {
-    if (net.branchElement[b] === net.inputElement && net.branchRail[b] !== 0) clampPeak = Math.max(clampPeak, sim.branchPeakI[b]);
+    if (net.branchElement[b] === net.inputElement && net.branchRail[b] !== 0)
+      clampPeak = Math.max(clampPeak, sim.branchPeakI[b]);
   }
-  const beyond = sim.inputMaxV > upperLimit ? sim.inputMaxV - upperLimit : sim.inputMinV < lowerLimit ? lowerLimit - sim.inputMinV : 0;
-  const extreme = sim.inputMaxV > upperLimit || sim.inputMaxV - input.positiveRail >= input.negativeRail - sim.inputMinV ? sim.inputMaxV : sim.inputMinV;
+  const beyond =
+    sim.inputMaxV > upperLimit
+      ? sim.inputMaxV - upperLimit
+      : sim.inputMinV < lowerLimit
+        ? lowerLimit - sim.inputMinV
+        : 0;
+  const extreme =
+    sim.inputMaxV > upperLimit ||
+    sim.inputMaxV - input.positiveRail >= input.negativeRail - sim.inputMinV
+      ? sim.inputMaxV
+      : sim.inputMinV;
   let inputVerdict: Verdict;
   let inputReason: string;
   if (input.internalClamps) {
     const limit = input.absMaxCurrent ?? DEFAULT_INPUT_CLAMP_CURRENT;
-    const ch = check({ quantity: 'current', value: clampPeak, rating: limit, temperatureFactor: 1, margin: conditions.voltageDerating, label: `input: clamp current (pin at ${V(extreme)})`, unit: 'A' });
+    const ch = check({
+      quantity: 'current',
+      value: clampPeak,
+      rating: limit,
+      temperatureFactor: 1,
+      margin: conditions.voltageDerating,
+      label: `input: clamp current (pin at ${V(extreme)})`,
+      unit: 'A',
+    });
     inputVerdict = ch.verdict;
     inputReason = ch.reason!;
     if (input.absMaxCurrent === undefined) inputReason += ' (10 mA assumed: common practice)';
@@ -509,7 +813,9 @@ export function solveWithNetwork(
     ['negative', input.negativeRail, input.negativeRailMinLoad],
   ];
   railDefs.forEach(([rail, voltage, minLoad], k) => {
-    const injected = sim.steady ? sim.railSum[k] / (sim.duration > 0 ? sim.duration : 1) : sim.railPeak[k];
+    const injected = sim.steady
+      ? sim.railSum[k] / (sim.duration > 0 ? sim.duration : 1)
+      : sim.railPeak[k];
     const name = `${rail === 'positive' ? '+' : ''}${V(voltage)} rail`;
     let pumpsUp: boolean | null;
     let verdict: Verdict;
@@ -550,9 +856,18 @@ export function solveWithNetwork(
   ];
   const worst = all[worstIndex(all)];
   const notes = [...net.notes, ...sim.notes];
-  if (sign === -1) notes.push('hazard on the return terminal: applied with reversed polarity relative to the circuit common');
-  if (stressCase.kind === 'surge') notes.push('surge: open-circuit 1.2/50 µs voltage behind 2 Ω + coupling (conservative in energy into low impedance)');
-  if (stressCase.kind === 'esd') notes.push('ESD: 150 pF discharged through 330 Ω (carries the full charge; the standard\'s sub-nanosecond first peak is not modelled)');
+  if (sign === -1)
+    notes.push(
+      'hazard on the return terminal: applied with reversed polarity relative to the circuit common',
+    );
+  if (stressCase.kind === 'surge')
+    notes.push(
+      'surge: open-circuit 1.2/50 µs voltage behind 2 Ω + coupling (conservative in energy into low impedance)',
+    );
+  if (stressCase.kind === 'esd')
+    notes.push(
+      "ESD: 150 pF discharged through 330 Ω (carries the full charge; the standard's sub-nanosecond first peak is not modelled)",
+    );
 
   const result: StressResultWithTrace = {
     case: stressCase,
@@ -560,7 +875,12 @@ export function solveWithNetwork(
     reason: worst.reason,
     sourcePeakCurrent: sim.sourcePeakCurrent,
     elements,
-    input: { peakVoltage: peakInputV, peakCurrent: sim.inputPeakCurrent, verdict: inputVerdict, reason: inputReason },
+    input: {
+      peakVoltage: peakInputV,
+      peakCurrent: sim.inputPeakCurrent,
+      verdict: inputVerdict,
+      reason: inputReason,
+    },
     rails,
     notes,
   };
@@ -569,6 +889,11 @@ export function solveWithNetwork(
   return result;
 }
 
-export function solveStress(guard: Guard, stressCase: StressCase, conditions: StressConditions, options: SolveOptions = {}): StressResultWithTrace {
+export function solveStress(
+  guard: Guard,
+  stressCase: StressCase,
+  conditions: StressConditions,
+  options: SolveOptions = {},
+): StressResultWithTrace {
   return solveWithNetwork(guard, compileGuard(guard), stressCase, conditions, options);
 }

@@ -246,13 +246,7 @@ export interface StressConditions {
 // ---------------------------------------------------------------- results
 
 export type StressQuantity =
-  | 'power'
-  | 'voltage'
-  | 'current'
-  | 'energy'
-  | 'surgeCurrent'
-  | 'pulsePower'
-  | 'i2t';
+  'power' | 'voltage' | 'current' | 'energy' | 'surgeCurrent' | 'pulsePower' | 'i2t';
 
 export interface RatingCheck {
   quantity: StressQuantity;

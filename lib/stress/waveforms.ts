@@ -33,12 +33,15 @@ export const SURGE_TAU_TAIL = 68.21697156035133e-6;
 /** Peak of exp(−t/τ2) − exp(−t/τ1), reached at SURGE_PEAK_TIME. */
 export const SURGE_SHAPE_PEAK = 0.9640856865905347;
 export const SURGE_PEAK_TIME =
-  (Math.log(SURGE_TAU_TAIL / SURGE_TAU_FRONT) * SURGE_TAU_FRONT * SURGE_TAU_TAIL) / (SURGE_TAU_TAIL - SURGE_TAU_FRONT);
+  (Math.log(SURGE_TAU_TAIL / SURGE_TAU_FRONT) * SURGE_TAU_FRONT * SURGE_TAU_TAIL) /
+  (SURGE_TAU_TAIL - SURGE_TAU_FRONT);
 
 /** Open-circuit surge voltage at time t for an open-circuit peak `peak`. */
 export function surgeOpenCircuitVoltage(t: number, peak: number): number {
   if (t <= 0) return 0;
-  return (peak / SURGE_SHAPE_PEAK) * (Math.exp(-t / SURGE_TAU_TAIL) - Math.exp(-t / SURGE_TAU_FRONT));
+  return (
+    (peak / SURGE_SHAPE_PEAK) * (Math.exp(-t / SURGE_TAU_TAIL) - Math.exp(-t / SURGE_TAU_FRONT))
+  );
 }
 
 export const ESD_CAPACITANCE = 150e-12;
@@ -96,8 +99,8 @@ function levelIntegrals(): { g: Float64Array; h: Float64Array } {
     const mid = timeAbove(um);
     const next = timeAbove(u1);
     // Simpson on each cell
-    g[k] = g[k - 1] + ((previous + 4 * mid + next) / 6) / n;
-    h[k] = h[k - 1] + ((u0 * previous + 4 * um * mid + u1 * next) / 6) / n;
+    g[k] = g[k - 1] + (previous + 4 * mid + next) / 6 / n;
+    h[k] = h[k - 1] + (u0 * previous + 4 * um * mid + u1 * next) / 6 / n;
     previous = next;
   }
   levelTables = { g, h };
@@ -119,7 +122,10 @@ function tableAt(table: Float64Array, u: number): number {
  * works: the solver adds levels at the clamps' knees and marks them not `smooth`, so the
  * pieces around them are linear.
  */
-export function surgeWeightsFor(levels: ArrayLike<number>, smooth?: ArrayLike<boolean>): Float64Array {
+export function surgeWeightsFor(
+  levels: ArrayLike<number>,
+  smooth?: ArrayLike<boolean>,
+): Float64Array {
   const { g, h } = levelIntegrals();
   const n = levels.length;
   const weights = new Float64Array(n);

@@ -11,8 +11,8 @@ const PREFIXES: Record<string, number> = {
   p: 1e-12,
   n: 1e-9,
   u: 1e-6,
-  'µ': 1e-6, // U+00B5 micro sign
-  'μ': 1e-6, // U+03BC Greek small mu
+  µ: 1e-6, // U+00B5 micro sign
+  μ: 1e-6, // U+03BC Greek small mu
   m: 1e-3,
   k: 1e3,
   K: 1e3,
@@ -29,8 +29,8 @@ const UNIT_ALIASES: Record<string, UnitSymbol> = {
   v: 'V',
   A: 'A',
   W: 'W',
-  'Ω': 'Ω',
-  'Ω': 'Ω', // U+2126 ohm sign
+  Ω: 'Ω',
+  Ω: 'Ω', // U+2126 ohm sign
   ohm: 'Ω',
   ohms: 'Ω',
   Ohm: 'Ω',
@@ -117,7 +117,16 @@ function matchUnit(rest: string): string | null {
   return UNIT_ALIASES[rest] !== undefined ? rest : null;
 }
 
-const FORMAT_PREFIX_BY_EXPONENT: Record<number, string> = { 9: 'G', 6: 'M', 3: 'k', 0: '', [-3]: 'm', [-6]: 'µ', [-9]: 'n', [-12]: 'p' };
+const FORMAT_PREFIX_BY_EXPONENT: Record<number, string> = {
+  9: 'G',
+  6: 'M',
+  3: 'k',
+  0: '',
+  [-3]: 'm',
+  [-6]: 'µ',
+  [-9]: 'n',
+  [-12]: 'p',
+};
 
 /** 0.0167, 'A' → "16.7 mA"; 2460, 'Ω' → "2.46 kΩ". Three significant figures by default. */
 export function formatEng(value: number, unit = '', significant = 3): string {

@@ -5,7 +5,15 @@
  */
 import { existsSync } from 'node:fs';
 import { pathToFileURL } from 'node:url';
-import { clearStressCache, solveStress, solveStressCached, stressCacheStats, type Guard, type StressCase, type StressConditions } from '../../lib/stress';
+import {
+  clearStressCache,
+  solveStress,
+  solveStressCached,
+  stressCacheStats,
+  type Guard,
+  type StressCase,
+  type StressConditions,
+} from '../../lib/stress';
 import { NGSPICE, spiceFigures } from '../../tests/stress/spice/netlist';
 import { timeRuns, type BenchFigure } from './exposure';
 
@@ -27,42 +35,202 @@ const E12 = [1, 1.2, 1.5, 1.8, 2.2, 2.7, 3.3, 3.9, 4.7, 5.6, 6.8, 8.2];
 
 /** Typical input guards (invented), one or two stages, with values drawn per channel. */
 export function guardRecipe(kind: number, rnd: () => number): Guard {
-  const r = (lo: number, decades: number) => Number((E12[Math.floor(rnd() * 12)] * lo * 10 ** Math.floor(rnd() * decades)).toPrecision(3));
+  const r = (lo: number, decades: number) =>
+    Number((E12[Math.floor(rnd() * 12)] * lo * 10 ** Math.floor(rnd() * decades)).toPrecision(3));
   const input24 = { positiveRail: 24, negativeRail: 0, absMaxBeyondRail: 0.3 };
   switch (kind % 5) {
     case 0: // 24 V digital input: resistor + bidirectional zener
       return {
-        stages: [{ series: { kind: 'resistor', id: 'R1', resistance: r(1e3, 2), ratedPower: 0.25, limitingVoltage: 200 }, shunts: [{ kind: 'zener', id: 'Z1', bidirectional: true, zenerVoltage: 27, testCurrent: 5e-3, dynamicImpedance: 35, powerRating: 0.5 }] }],
+        stages: [
+          {
+            series: {
+              kind: 'resistor',
+              id: 'R1',
+              resistance: r(1e3, 2),
+              ratedPower: 0.25,
+              limitingVoltage: 200,
+            },
+            shunts: [
+              {
+                kind: 'zener',
+                id: 'Z1',
+                bidirectional: true,
+                zenerVoltage: 27,
+                testCurrent: 5e-3,
+                dynamicImpedance: 35,
+                powerRating: 0.5,
+              },
+            ],
+          },
+        ],
         input: { ...input24, inputResistance: 4.7e3 },
       };
     case 1: // IC input: resistor + TVS, resistor + rail diodes, internal clamps
       return {
         stages: [
-          { series: { kind: 'resistor', id: 'R1', resistance: r(10, 2), ratedPower: 0.5, limitingVoltage: 350, overloadVoltage: 700 }, shunts: [{ kind: 'tvs', id: 'TV1', bidirectional: false, standoffVoltage: 26, breakdownVoltage: 28.9, clampVoltage: 42.1, peakPulseCurrent: 14.3 }] },
-          { series: { kind: 'resistor', id: 'R2', resistance: r(1e3, 1), ratedPower: 0.125, limitingVoltage: 150 }, shunts: [{ kind: 'railDiodes', id: 'D1', forwardVoltage: 1, forwardCurrent: 0.01, averageCurrent: 0.15, surgeCurrent: 1 }] },
+          {
+            series: {
+              kind: 'resistor',
+              id: 'R1',
+              resistance: r(10, 2),
+              ratedPower: 0.5,
+              limitingVoltage: 350,
+              overloadVoltage: 700,
+            },
+            shunts: [
+              {
+                kind: 'tvs',
+                id: 'TV1',
+                bidirectional: false,
+                standoffVoltage: 26,
+                breakdownVoltage: 28.9,
+                clampVoltage: 42.1,
+                peakPulseCurrent: 14.3,
+              },
+            ],
+          },
+          {
+            series: {
+              kind: 'resistor',
+              id: 'R2',
+              resistance: r(1e3, 1),
+              ratedPower: 0.125,
+              limitingVoltage: 150,
+            },
+            shunts: [
+              {
+                kind: 'railDiodes',
+                id: 'D1',
+                forwardVoltage: 1,
+                forwardCurrent: 0.01,
+                averageCurrent: 0.15,
+                surgeCurrent: 1,
+              },
+            ],
+          },
         ],
-        input: { ...input24, inputResistance: 5e3, internalClamps: true, positiveRailMinLoad: 0.02 },
+        input: {
+          ...input24,
+          inputResistance: 5e3,
+          internalClamps: true,
+          positiveRailMinLoad: 0.02,
+        },
       };
     case 2: // 4–20 mA: PTC + TVS, burden
       return {
         stages: [
-          { series: { kind: 'ptc', id: 'F1', resistance: 10, holdCurrent: 0.05, tripCurrent: 0.1, maxVoltage: 60 }, shunts: [{ kind: 'tvs', id: 'TV1', bidirectional: true, standoffVoltage: 33, breakdownVoltage: 36.7, clampVoltage: 53.3, peakPulseCurrent: 11.3 }] },
-          { series: { kind: 'resistor', id: 'R1', resistance: r(10, 2), ratedPower: 0.25, limitingVoltage: 200 }, shunts: [{ kind: 'shuntResistor', id: 'RB', resistance: 250, ratedPower: 0.25, limitingVoltage: 200 }] },
+          {
+            series: {
+              kind: 'ptc',
+              id: 'F1',
+              resistance: 10,
+              holdCurrent: 0.05,
+              tripCurrent: 0.1,
+              maxVoltage: 60,
+            },
+            shunts: [
+              {
+                kind: 'tvs',
+                id: 'TV1',
+                bidirectional: true,
+                standoffVoltage: 33,
+                breakdownVoltage: 36.7,
+                clampVoltage: 53.3,
+                peakPulseCurrent: 11.3,
+              },
+            ],
+          },
+          {
+            series: {
+              kind: 'resistor',
+              id: 'R1',
+              resistance: r(10, 2),
+              ratedPower: 0.25,
+              limitingVoltage: 200,
+            },
+            shunts: [
+              {
+                kind: 'shuntResistor',
+                id: 'RB',
+                resistance: 250,
+                ratedPower: 0.25,
+                limitingVoltage: 200,
+              },
+            ],
+          },
         ],
         input: { ...input24, inputResistance: 1e6, internalClamps: true },
       };
     case 3: // surge terminal: fuse + varistor, then a resistor
       return {
         stages: [
-          { series: { kind: 'fuse', id: 'F1', ratedCurrent: 0.1, voltageRating: 250, meltingI2t: 0.02, resistance: 1.5 }, shunts: [{ kind: 'varistor', id: 'RV1', maxContinuousVoltage: 30, varistorVoltage: 47, clampVoltage: 93, clampCurrent: 5, surgeCurrent: 500, surgeEnergy: 2 }] },
-          { series: { kind: 'resistor', id: 'R1', resistance: r(10, 2), ratedPower: 0.5, limitingVoltage: 350 }, shunts: [] },
+          {
+            series: {
+              kind: 'fuse',
+              id: 'F1',
+              ratedCurrent: 0.1,
+              voltageRating: 250,
+              meltingI2t: 0.02,
+              resistance: 1.5,
+            },
+            shunts: [
+              {
+                kind: 'varistor',
+                id: 'RV1',
+                maxContinuousVoltage: 30,
+                varistorVoltage: 47,
+                clampVoltage: 93,
+                clampCurrent: 5,
+                surgeCurrent: 500,
+                surgeEnergy: 2,
+              },
+            ],
+          },
+          {
+            series: {
+              kind: 'resistor',
+              id: 'R1',
+              resistance: r(10, 2),
+              ratedPower: 0.5,
+              limitingVoltage: 350,
+            },
+            shunts: [],
+          },
         ],
         input: { ...input24, inputResistance: 2.7e3 },
       };
     default: // analog voltage input with rail diodes only
       return {
-        stages: [{ series: { kind: 'resistor', id: 'R1', resistance: r(1e3, 2), ratedPower: 0.25, limitingVoltage: 200 }, shunts: [{ kind: 'railDiodes', id: 'D1', forwardVoltage: 1, forwardCurrent: 0.01, averageCurrent: 0.2, surgeCurrent: 2 }] }],
-        input: { positiveRail: 10, negativeRail: -10, absMaxBeyondRail: 0.3, inputResistance: 1e6, internalClamps: true, positiveRailMinLoad: 0.005, negativeRailMinLoad: 0.005 },
+        stages: [
+          {
+            series: {
+              kind: 'resistor',
+              id: 'R1',
+              resistance: r(1e3, 2),
+              ratedPower: 0.25,
+              limitingVoltage: 200,
+            },
+            shunts: [
+              {
+                kind: 'railDiodes',
+                id: 'D1',
+                forwardVoltage: 1,
+                forwardCurrent: 0.01,
+                averageCurrent: 0.2,
+                surgeCurrent: 2,
+              },
+            ],
+          },
+        ],
+        input: {
+          positiveRail: 10,
+          negativeRail: -10,
+          absMaxBeyondRail: 0.3,
+          inputResistance: 1e6,
+          internalClamps: true,
+          positiveRailMinLoad: 0.005,
+          negativeRailMinLoad: 0.005,
+        },
       };
   }
 }
@@ -84,7 +252,8 @@ export function benchEngine(runs = 5): BenchFigure[] {
   for (const c of CASE_MIX) perKind.set(c.kind === 'ac' ? `ac ${c.frequency} Hz` : c.kind, [c]);
   perKind.set('mix (DC, AC 50/60 Hz, surge, ESD)', CASE_MIX);
   // warm the JIT on the whole mix first, so the first kind measured is not penalised
-  for (let k = 0; k < 3; k++) for (const g of guards) for (const c of CASE_MIX) solveStress(g, c, CONDITIONS);
+  for (let k = 0; k < 3; k++)
+    for (const g of guards) for (const c of CASE_MIX) solveStress(g, c, CONDITIONS);
   for (const [name, cases] of perKind) {
     const count = guards.length * cases.length;
     const t = timeRuns(() => {
@@ -105,7 +274,9 @@ export function benchEngine(runs = 5): BenchFigure[] {
 export function benchNgspice(): BenchFigure | null {
   if (!existsSync(NGSPICE)) return null;
   const rnd = random(5);
-  const pairs = CASE_MIX.flatMap((c, k) => [guardRecipe(k, rnd), guardRecipe(k + 1, rnd)].map((g) => [g, c] as const));
+  const pairs = CASE_MIX.flatMap((c, k) =>
+    [guardRecipe(k, rnd), guardRecipe(k + 1, rnd)].map((g) => [g, c] as const),
+  );
   let spiceMs = 0;
   let engineMs = 0;
   for (const [g, c] of pairs) {
@@ -133,12 +304,13 @@ export function benchChannels(runs = 3): BenchFigure {
   const rnd = random(23);
   // 40 recipes (value variants of the five kinds); one channel in ten has an as-built override.
   const recipes = Array.from({ length: 40 }, (_, k) => guardRecipe(k, rnd));
-  const channels = Array.from({ length: 10_000 }, (_, k) => {
+  const channels = Array.from({ length: 10_000 }, () => {
     const base = recipes[Math.floor(rnd() * recipes.length)];
     if (rnd() < 0.1) {
       const copy = structuredClone(base);
       const s = copy.stages[0].series;
-      if (s.kind === 'resistor') s.resistance = Number((s.resistance * (0.5 + rnd())).toPrecision(3));
+      if (s.kind === 'resistor')
+        s.resistance = Number((s.resistance * (0.5 + rnd())).toPrecision(3));
       return copy;
     }
     return base;
@@ -166,4 +338,5 @@ export function benchStress(): BenchFigure[] {
   return out;
 }
 
-if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) for (const f of benchStress()) console.log(f);
+if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href)
+  for (const f of benchStress()) console.log(f);

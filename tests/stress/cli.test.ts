@@ -10,7 +10,12 @@ const root = fileURLToPath(new URL('../..', import.meta.url));
 const fixture = fileURLToPath(new URL('./fixtures/trade-120v.json', import.meta.url));
 
 function run(args: string[], input?: string) {
-  return spawnSync('npx', ['tsx', 'scripts/stress.ts', ...args], { cwd: root, input, encoding: 'utf8', timeout: 60_000 });
+  return spawnSync('npx', ['tsx', 'scripts/stress.ts', ...args], {
+    cwd: root,
+    input,
+    encoding: 'utf8',
+    timeout: 60_000,
+  });
 }
 
 describe('npm run stress', () => {
@@ -38,7 +43,13 @@ describe('npm run stress', () => {
   });
 
   it('bad input: names the field on stderr, exits 2, prints nothing on stdout', () => {
-    const out = run([], JSON.stringify({ guard: { stages: [], input: { positiveRail: 24, negativeRail: 0, absMaxBeyondRail: 0.3 } }, case: { kind: 'ac', rmsVoltage: '230V', frequency: 'fifty', sourceResistance: 0 } }));
+    const out = run(
+      [],
+      JSON.stringify({
+        guard: { stages: [], input: { positiveRail: 24, negativeRail: 0, absMaxBeyondRail: 0.3 } },
+        case: { kind: 'ac', rmsVoltage: '230V', frequency: 'fifty', sourceResistance: 0 },
+      }),
+    );
     expect(out.status).toBe(2);
     expect(out.stdout).toBe('');
     expect(out.stderr).toMatch(/case\.frequency: "fifty" does not start with a number/);

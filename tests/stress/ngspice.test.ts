@@ -25,10 +25,24 @@ const PAIRS: Pair[] = [
   { network: 'zener10k', case: 'dc24', what: 'DC, one stage, zener pair' },
   { network: 'zener10k', case: 'ac120', what: 'AC 60 Hz, one stage, zener pair (trade example)' },
   { network: 'zener10k', case: 'surge1k', what: 'surge 1 kV / 42 Ω' },
-  { network: 'zener10k', case: 'esd8k', what: 'ESD −8 kV', spice: { pulseEnd: 20e-6, pulseStep: 0.2e-9 } },
-  { network: 'tvsRail2', case: 'ac230', what: 'AC 50 Hz, two stages, TVS + rail diodes + internal clamps' },
+  {
+    network: 'zener10k',
+    case: 'esd8k',
+    what: 'ESD −8 kV',
+    spice: { pulseEnd: 20e-6, pulseStep: 0.2e-9 },
+  },
+  {
+    network: 'tvsRail2',
+    case: 'ac230',
+    what: 'AC 50 Hz, two stages, TVS + rail diodes + internal clamps',
+  },
   { network: 'tvsRail2', case: 'surge2k', what: 'surge −2 kV / 12 Ω, two stages' },
-  { network: 'tvsRail2', case: 'esd4k', what: 'ESD 4 kV, two stages', spice: { pulseEnd: 3e-6, pulseStep: 0.05e-9 } },
+  {
+    network: 'tvsRail2',
+    case: 'esd4k',
+    what: 'ESD 4 kV, two stages',
+    spice: { pulseEnd: 3e-6, pulseStep: 0.05e-9 },
+  },
   { network: 'noClamp', case: 'ac230', what: 'AC 50 Hz, no clamp at all' },
   { network: 'noClamp', case: 'dc48', what: 'DC −48 V, no clamp' },
   { network: 'resistorFails', case: 'ac230', what: 'AC 50 Hz, resistor fails' },
@@ -38,22 +52,43 @@ const PAIRS: Pair[] = [
   { network: 'tvsBi', case: 'ac24', what: 'AC 26.4 V on a 24 V TVS' },
   { network: 'varistorTerminal', case: 'surge2k', what: 'surge into a varistor behind a fuse' },
   { network: 'varistorTerminal', case: 'ac24', what: 'AC on a varistor terminal' },
-  { network: 'filterCap', case: 'ac230', what: 'AC 50 Hz with a filter capacitor (time-stepped)', spice: { cycles: 3 } },
+  {
+    network: 'filterCap',
+    case: 'ac230',
+    what: 'AC 50 Hz with a filter capacitor (time-stepped)',
+    spice: { cycles: 3 },
+  },
   { network: 'filterCap', case: 'surge1k', what: 'surge with a filter capacitor' },
-  { network: 'esdCapRail', case: 'esd8k', what: 'ESD into a terminal capacitor and rail diodes', spice: { pulseEnd: 3e-6, pulseStep: 0.05e-9 } },
+  {
+    network: 'esdCapRail',
+    case: 'esd8k',
+    what: 'ESD into a terminal capacitor and rail diodes',
+    spice: { pulseEnd: 3e-6, pulseStep: 0.05e-9 },
+  },
   { network: 'loop420', case: 'dc48', what: 'DC −48 V on a 4–20 mA loop input with PTC and TVS' },
 ];
 
-function close(label: string, engine: number, spice: number, floor: number, failures: string[]): void {
+function close(
+  label: string,
+  engine: number,
+  spice: number,
+  floor: number,
+  failures: string[],
+): void {
   const scale = Math.max(Math.abs(spice), floor);
   const error = Math.abs(engine - spice) / scale;
-  if (!(error <= TOLERANCE)) failures.push(`${label}: engine ${engine.toPrecision(6)} vs ngspice ${spice.toPrecision(6)} (${(100 * error).toFixed(2)} %)`);
+  if (!(error <= TOLERANCE))
+    failures.push(
+      `${label}: engine ${engine.toPrecision(6)} vs ngspice ${spice.toPrecision(6)} (${(100 * error).toFixed(2)} %)`,
+    );
 }
 
 describe('agreement with ngspice', () => {
   beforeAll(() => {
     if (!existsSync(NGSPICE)) {
-      throw new Error(`ngspice is required for the engine agreement tests and was not found at ${NGSPICE} (apt-get install -y ngspice)`);
+      throw new Error(
+        `ngspice is required for the engine agreement tests and was not found at ${NGSPICE} (apt-get install -y ngspice)`,
+      );
     }
   });
 
@@ -63,7 +98,11 @@ describe('agreement with ngspice', () => {
     expect(covered.size).toBeGreaterThanOrEqual(9);
     const kinds = new Set(PAIRS.map((p) => CASES[p.case].kind));
     expect([...kinds].sort()).toEqual(['ac', 'dc', 'esd', 'surge']);
-    const frequencies = new Set(PAIRS.map((p) => CASES[p.case]).filter((c): c is Extract<StressCase, { kind: 'ac' }> => c.kind === 'ac').map((c) => c.frequency));
+    const frequencies = new Set(
+      PAIRS.map((p) => CASES[p.case])
+        .filter((c): c is Extract<StressCase, { kind: 'ac' }> => c.kind === 'ac')
+        .map((c) => c.frequency),
+    );
     expect(frequencies).toEqual(new Set([50, 60]));
   });
 
@@ -77,21 +116,55 @@ describe('agreement with ngspice', () => {
       close('source peak current', engine.sourcePeakCurrent, spice.sourcePeakCurrent, 0, failures);
       const steady = stressCase.kind === 'ac' || stressCase.kind === 'dc';
       const maxPeakPower = Math.max(...engine.elements.map((e) => e.peakPower ?? 0));
-      const maxEnergy = Math.max(...engine.elements.map((e) => (steady ? e.averagePower! : e.pulseEnergy!)));
+      const maxEnergy = Math.max(
+        ...engine.elements.map((e) => (steady ? e.averagePower! : e.pulseEnergy!)),
+      );
       for (const el of engine.elements) {
         const s = spice.elements[el.elementId];
-        close(`${el.elementId} peak current`, el.peakCurrent, s.peakCurrent, 1e-4 * engine.sourcePeakCurrent, failures);
+        close(
+          `${el.elementId} peak current`,
+          el.peakCurrent,
+          s.peakCurrent,
+          1e-4 * engine.sourcePeakCurrent,
+          failures,
+        );
         if (el.kind === 'capacitor') {
           // An ideal capacitor dissipates nothing (its net energy is ~0 in both): it is rated,
           // and compared, on its peak voltage; its instantaneous (reactive) power is not a stress.
           close(`${el.elementId} peak voltage`, el.peakVoltage, s.peakVoltage, 0, failures);
           continue;
         }
-        close(`${el.elementId} peak power`, el.peakPower!, s.peakPower, 1e-4 * maxPeakPower, failures);
-        if (steady) close(`${el.elementId} average power`, el.averagePower!, s.average, 1e-4 * maxEnergy, failures);
-        else close(`${el.elementId} pulse energy`, el.pulseEnergy!, s.energy, 1e-4 * maxEnergy, failures);
+        close(
+          `${el.elementId} peak power`,
+          el.peakPower!,
+          s.peakPower,
+          1e-4 * maxPeakPower,
+          failures,
+        );
+        if (steady)
+          close(
+            `${el.elementId} average power`,
+            el.averagePower!,
+            s.average,
+            1e-4 * maxEnergy,
+            failures,
+          );
+        else
+          close(
+            `${el.elementId} pulse energy`,
+            el.pulseEnergy!,
+            s.energy,
+            1e-4 * maxEnergy,
+            failures,
+          );
       }
-      close('input peak voltage', engine.input.peakVoltage, Math.max(Math.abs(spice.inputMaxV), Math.abs(spice.inputMinV)), 0, failures);
+      close(
+        'input peak voltage',
+        engine.input.peakVoltage,
+        Math.max(Math.abs(spice.inputMaxV), Math.abs(spice.inputMinV)),
+        0,
+        failures,
+      );
       expect(failures, failures.join('\n')).toEqual([]);
     });
   }

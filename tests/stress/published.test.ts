@@ -18,13 +18,23 @@ import { CONDITIONS } from './networks';
 
 /** A near short: 1 mΩ to the common right at the terminal. */
 const shortCircuit: Guard = parseGuard({
-  stages: [{ series: { kind: 'wire', id: 'W1', resistance: 0 }, shunts: [{ kind: 'shuntResistor', id: 'RS', resistance: '1m' }] }],
+  stages: [
+    {
+      series: { kind: 'wire', id: 'W1', resistance: 0 },
+      shunts: [{ kind: 'shuntResistor', id: 'RS', resistance: '1m' }],
+    },
+  ],
   input: { positiveRail: 24, negativeRail: 0, absMaxBeyondRail: 0.3 },
 });
 
 /** The standard's ESD current target: 2 Ω. */
 const esdTarget: Guard = parseGuard({
-  stages: [{ series: { kind: 'wire', id: 'W1', resistance: 0 }, shunts: [{ kind: 'shuntResistor', id: 'TARGET', resistance: '2' }] }],
+  stages: [
+    {
+      series: { kind: 'wire', id: 'W1', resistance: 0 },
+      shunts: [{ kind: 'shuntResistor', id: 'TARGET', resistance: '2' }],
+    },
+  ],
   input: { positiveRail: 24, negativeRail: 0, absMaxBeyondRail: 0.3 },
 });
 
@@ -79,7 +89,10 @@ describe('IEC 61000-4-2 contact discharge into the 2 Ω target', () => {
   // at 30 ns 2 A/kV (4/8/12/16 A at 2/4/6/8 kV) and at 60 ns 1 A/kV (2/4/6/8 A), ±30 %.
   for (const [level, kv] of Object.entries(ESD_CONTACT_LEVELS)) {
     it(`level ${level} (${kv / 1000} kV): first peak, 30 ns and 60 ns currents within the standard's tolerances`, () => {
-      const result = solveStress(esdTarget, { kind: 'esd', voltage: kv }, CONDITIONS, { waveform: true, maxWaveformPoints: 1_000_000 });
+      const result = solveStress(esdTarget, { kind: 'esd', voltage: kv }, CONDITIONS, {
+        waveform: true,
+        maxWaveformPoints: 1_000_000,
+      });
       const wave = result.waveform!;
       const current = wave.traces.find((t) => t.name === 'source current')!.values;
       const at = (time: number) => {
@@ -97,7 +110,8 @@ describe('IEC 61000-4-2 contact discharge into the 2 Ω target', () => {
       expect(at(60e-9) / perKv).toBeLessThan(1 * 1.3);
       // the whole stored charge is delivered: 150 pF × V (+ the 0.5 % tip), IEC 61000-4-2 clause 6.1 (150 pF, 330 Ω)
       let charge = 0;
-      for (let k = 1; k < wave.t.length; k++) charge += 0.5 * (current[k] + current[k - 1]) * (wave.t[k] - wave.t[k - 1]);
+      for (let k = 1; k < wave.t.length; k++)
+        charge += 0.5 * (current[k] + current[k - 1]) * (wave.t[k] - wave.t[k - 1]);
       expect(charge / (150e-12 * kv)).toBeGreaterThan(0.99);
       expect(charge / (150e-12 * kv)).toBeLessThan(1.02);
     });
@@ -134,16 +148,35 @@ describe('IEC 60115-1 style resistor power derating (REFERENCE.md "Resistors")',
   });
   it('the verdict uses it: 0.2 W average in a 0.25 W resistor at 100 °C fails (0.162 W allowed)', () => {
     const guard: Guard = parseGuard({
-      stages: [{ series: { kind: 'resistor', id: 'R1', resistance: '1k', ratedPower: '0.25W', limitingVoltage: '200V' }, shunts: [] }],
+      stages: [
+        {
+          series: {
+            kind: 'resistor',
+            id: 'R1',
+            resistance: '1k',
+            ratedPower: '0.25W',
+            limitingVoltage: '200V',
+          },
+          shunts: [],
+        },
+      ],
       input: { positiveRail: 24, negativeRail: 0, absMaxBeyondRail: 0.3, inputResistance: '1m' },
     });
     // 14.14 V DC across 1 kΩ: 0.2 W
-    const hot = solveStress(guard, { kind: 'dc', voltage: Math.sqrt(0.2 * 1000), sourceResistance: 0 }, { ...CONDITIONS, ambientC: 100 });
+    const hot = solveStress(
+      guard,
+      { kind: 'dc', voltage: Math.sqrt(0.2 * 1000), sourceResistance: 0 },
+      { ...CONDITIONS, ambientC: 100 },
+    );
     const r1 = hot.elements[0];
     expect(r1.averagePower!).toBeCloseTo(0.2, 4);
     expect(r1.checks[0].temperatureRating!).toBeCloseTo(0.25 * (55 / 85), 9);
     expect(r1.verdict).toBe('fails');
-    const cool = solveStress(guard, { kind: 'dc', voltage: Math.sqrt(0.2 * 1000), sourceResistance: 0 }, { ...CONDITIONS, ambientC: 25 });
+    const cool = solveStress(
+      guard,
+      { kind: 'dc', voltage: Math.sqrt(0.2 * 1000), sourceResistance: 0 },
+      { ...CONDITIONS, ambientC: 25 },
+    );
     expect(cool.elements[0].verdict).toBe('marginal'); // within 0.25 W, beyond the 50 % margin
   });
 });

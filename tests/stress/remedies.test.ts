@@ -9,7 +9,12 @@ import { VERDICT_SEVERITY } from '@/lib/stress/types';
 import { CONDITIONS, NETWORKS } from './networks';
 
 function channelVerdict(guard: Guard, cases: StressCase[]) {
-  return cases.map((c) => solveStress(guard, c, CONDITIONS).verdict).reduce((w, v) => (VERDICT_SEVERITY[v] > VERDICT_SEVERITY[w] ? v : w), 'holds' as const as ReturnType<typeof solveStress>['verdict']);
+  return cases
+    .map((c) => solveStress(guard, c, CONDITIONS).verdict)
+    .reduce(
+      (w, v) => (VERDICT_SEVERITY[v] > VERDICT_SEVERITY[w] ? v : w),
+      'holds' as const as ReturnType<typeof solveStress>['verdict'],
+    );
 }
 
 describe('E series (IEC 60063)', () => {
@@ -18,7 +23,9 @@ describe('E series (IEC 60063)', () => {
     expect(E96).toHaveLength(96);
     expect(E96.slice(0, 4)).toEqual([1, 1.02, 1.05, 1.07]);
     expect(E96[95]).toBe(9.76);
-    expect(eSeriesAbove(4700, 10e3, 'E24')).toEqual([5100, 5600, 6200, 6800, 7500, 8200, 9100, 10000]);
+    expect(eSeriesAbove(4700, 10e3, 'E24')).toEqual([
+      5100, 5600, 6200, 6800, 7500, 8200, 9100, 10000,
+    ]);
   });
 });
 
@@ -28,8 +35,25 @@ describe('suggestRemedies', () => {
   const guard: Guard = parseGuard({
     stages: [
       {
-        series: { kind: 'resistor', id: 'R1', resistance: '1k', ratedPower: '0.125W', limitingVoltage: '150V' },
-        shunts: [{ kind: 'tvs', id: 'TV1', bidirectional: false, standoffVoltage: '26V', breakdownVoltage: '28.9V', clampVoltage: '42.1V', peakPulseCurrent: '14.3A', steadyPower: '5W' }],
+        series: {
+          kind: 'resistor',
+          id: 'R1',
+          resistance: '1k',
+          ratedPower: '0.125W',
+          limitingVoltage: '150V',
+        },
+        shunts: [
+          {
+            kind: 'tvs',
+            id: 'TV1',
+            bidirectional: false,
+            standoffVoltage: '26V',
+            breakdownVoltage: '28.9V',
+            clampVoltage: '42.1V',
+            peakPulseCurrent: '14.3A',
+            steadyPower: '5W',
+          },
+        ],
       },
     ],
     input: { positiveRail: 48, negativeRail: 0, absMaxBeyondRail: 0.3, inputResistance: '10k' },
@@ -37,7 +61,13 @@ describe('suggestRemedies', () => {
   const cases: StressCase[] = [{ kind: 'dc', voltage: 48, sourceResistance: 0.1 }];
 
   it('nothing to suggest for a channel that holds', () => {
-    expect(suggestRemedies(NETWORKS.zener10k, { kind: 'dc', voltage: 24, sourceResistance: 0 }, CONDITIONS)).toEqual([]);
+    expect(
+      suggestRemedies(
+        NETWORKS.zener10k,
+        { kind: 'dc', voltage: 24, sourceResistance: 0 },
+        CONDITIONS,
+      ),
+    ).toEqual([]);
   });
 
   it('power rating and series resistance, each verified by re-solving', () => {
@@ -63,11 +93,19 @@ describe('suggestRemedies', () => {
   });
 
   it('TVS pulse rating for a surge it cannot take', () => {
-    const remedies = suggestRemedies(NETWORKS.tvsBi, { kind: 'surge', peakVoltage: 2000, couplingResistance: 10 }, CONDITIONS);
+    const remedies = suggestRemedies(
+      NETWORKS.tvsBi,
+      { kind: 'surge', peakVoltage: 2000, couplingResistance: 10 },
+      CONDITIONS,
+    );
     const tvs = remedies.find((r) => r.kind === 'tvsPulsePower');
     expect(tvs).toBeDefined();
     expect(tvs!.changes[0].to).toBeGreaterThan(600);
-    const after = solveStress(tvs!.guard, { kind: 'surge', peakVoltage: 2000, couplingResistance: 10 }, CONDITIONS);
+    const after = solveStress(
+      tvs!.guard,
+      { kind: 'surge', peakVoltage: 2000, couplingResistance: 10 },
+      CONDITIONS,
+    );
     expect(after.elements.find((e) => e.elementId === 'TV1')!.verdict).toBe('holds');
   });
 });

@@ -76,7 +76,12 @@ describe('formatEng', () => {
 describe('stress JSON schema', () => {
   it('accepts numbers or engineering strings and produces SI numbers', () => {
     const guard = parseGuard({
-      stages: [{ series: { kind: 'resistor', id: 'R1', resistance: '4k99', ratedPower: '0.25W' }, shunts: [{ kind: 'capacitor', id: 'C1', capacitance: '100n' }] }],
+      stages: [
+        {
+          series: { kind: 'resistor', id: 'R1', resistance: '4k99', ratedPower: '0.25W' },
+          shunts: [{ kind: 'capacitor', id: 'C1', capacitance: '100n' }],
+        },
+      ],
       input: { positiveRail: '24V', negativeRail: 0, absMaxBeyondRail: 0.3 },
     });
     expect(guard.stages[0].series).toMatchObject({ resistance: 4990, ratedPower: 0.25 });
@@ -86,7 +91,12 @@ describe('stress JSON schema', () => {
     try {
       parseStressRequest({
         guard: {
-          stages: [{ series: { kind: 'resistor', id: 'R1', resistance: '10kV' }, shunts: [{ kind: 'zener', id: 'Z1', bidirectional: true, zenerVoltage: '12' }] }],
+          stages: [
+            {
+              series: { kind: 'resistor', id: 'R1', resistance: '10kV' },
+              shunts: [{ kind: 'zener', id: 'Z1', bidirectional: true, zenerVoltage: '12' }],
+            },
+          ],
           input: { positiveRail: 5, negativeRail: 10, absMaxBeyondRail: 0.3 },
         },
         case: { kind: 'surge', peakVoltage: 'lots' },
@@ -99,17 +109,30 @@ describe('stress JSON schema', () => {
       expect(paths).toContain('guard.stages.0.shunts.0.dynamicImpedance');
       expect(paths).toContain('case.peakVoltage');
       expect(paths).toContain('case.couplingResistance');
-      expect((error as Error).message).toMatch(/guard\.stages\.0\.series\.resistance: "10kV": expected a value in Ω, got V/);
+      expect((error as Error).message).toMatch(
+        /guard\.stages\.0\.series\.resistance: "10kV": expected a value in Ω, got V/,
+      );
     }
   });
   it('rejects negative or zero where a part figure must be positive, and unknown kinds', () => {
-    expect(() => parseGuard({ stages: [{ series: { kind: 'resistor', id: 'R1', resistance: '-1k' }, shunts: [] }], input: { positiveRail: 5, negativeRail: 0, absMaxBeyondRail: 0.3 } })).toThrow(
-      /guard\.stages\.0\.series\.resistance: must not be negative/,
-    );
-    expect(() => parseGuard({ stages: [{ series: { kind: 'diode', id: 'D' }, shunts: [] }], input: { positiveRail: 5, negativeRail: 0, absMaxBeyondRail: 0.3 } })).toThrow(
-      /unknown series element kind "diode"/,
-    );
-    expect(() => parseGuard({ stages: [], input: { positiveRail: 0, negativeRail: 5, absMaxBeyondRail: 0.3 } })).toThrow(/guard\.input\.positiveRail: positive rail must be above/);
+    expect(() =>
+      parseGuard({
+        stages: [{ series: { kind: 'resistor', id: 'R1', resistance: '-1k' }, shunts: [] }],
+        input: { positiveRail: 5, negativeRail: 0, absMaxBeyondRail: 0.3 },
+      }),
+    ).toThrow(/guard\.stages\.0\.series\.resistance: must not be negative/);
+    expect(() =>
+      parseGuard({
+        stages: [{ series: { kind: 'diode', id: 'D' }, shunts: [] }],
+        input: { positiveRail: 5, negativeRail: 0, absMaxBeyondRail: 0.3 },
+      }),
+    ).toThrow(/unknown series element kind "diode"/);
+    expect(() =>
+      parseGuard({
+        stages: [],
+        input: { positiveRail: 0, negativeRail: 5, absMaxBeyondRail: 0.3 },
+      }),
+    ).toThrow(/guard\.input\.positiveRail: positive rail must be above/);
   });
   it('rejects duplicate element ids and unknown fields', () => {
     expect(() =>
@@ -121,6 +144,11 @@ describe('stress JSON schema', () => {
         input: { positiveRail: 5, negativeRail: 0, absMaxBeyondRail: 0.3 },
       }),
     ).toThrow(/duplicate element id "X"/);
-    expect(() => parseGuard({ stages: [], input: { positiveRail: 5, negativeRail: 0, absMaxBeyondRail: 0.3, colour: 'red' } })).toThrow(/colour/);
+    expect(() =>
+      parseGuard({
+        stages: [],
+        input: { positiveRail: 5, negativeRail: 0, absMaxBeyondRail: 0.3, colour: 'red' },
+      }),
+    ).toThrow(/colour/);
   });
 });

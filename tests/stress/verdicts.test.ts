@@ -14,11 +14,26 @@ describe('verdict classes', () => {
 
   it('marginal: a resistor between its derated and its absolute rating', () => {
     const guard: Guard = parseGuard({
-      stages: [{ series: { kind: 'resistor', id: 'R1', resistance: '1k', ratedPower: '0.25W', limitingVoltage: '200V' }, shunts: [] }],
+      stages: [
+        {
+          series: {
+            kind: 'resistor',
+            id: 'R1',
+            resistance: '1k',
+            ratedPower: '0.25W',
+            limitingVoltage: '200V',
+          },
+          shunts: [],
+        },
+      ],
       input: { positiveRail: 24, negativeRail: 0, absMaxBeyondRail: 0.3, inputResistance: '1m' },
     });
     // 0.2 W in R1 at 25 °C: beyond 0.125 W derated, within 0.25 W
-    const r = solveStress(guard, { kind: 'dc', voltage: Math.sqrt(0.2 * 1000), sourceResistance: 0 }, { ...CONDITIONS, ambientC: 25 });
+    const r = solveStress(
+      guard,
+      { kind: 'dc', voltage: Math.sqrt(0.2 * 1000), sourceResistance: 0 },
+      { ...CONDITIONS, ambientC: 25 },
+    );
     expect(r.verdict).toBe('marginal');
     expect(r.reason).toMatch(/^R1: 200 mW peak \/ 200 mW average against 125 mW derated/);
   });
@@ -44,8 +59,22 @@ describe('verdict classes', () => {
     const guard: Guard = parseGuard({
       stages: [
         {
-          series: { kind: 'resistor', id: 'R1', resistance: '10k', ratedPower: '2W', limitingVoltage: '500V' },
-          shunts: [{ kind: 'zener', id: 'Z1', bidirectional: true, zenerVoltage: '12V', dynamicImpedance: '9' }],
+          series: {
+            kind: 'resistor',
+            id: 'R1',
+            resistance: '10k',
+            ratedPower: '2W',
+            limitingVoltage: '500V',
+          },
+          shunts: [
+            {
+              kind: 'zener',
+              id: 'Z1',
+              bidirectional: true,
+              zenerVoltage: '12V',
+              dynamicImpedance: '9',
+            },
+          ],
         },
       ],
       // a ±15 V input: the clamped ±12.9 V stays within its rails
@@ -76,12 +105,43 @@ describe('verdict classes', () => {
   it('a fuse that opens says how fast, from its melting I²t', () => {
     const guard: Guard = parseGuard({
       stages: [
-        { series: { kind: 'fuse', id: 'F1', ratedCurrent: '100mA', voltageRating: '400V', meltingI2t: '0.02' }, shunts: [{ kind: 'zener', id: 'Z1', bidirectional: true, zenerVoltage: '24V', dynamicImpedance: '5', powerRating: '5W' }] },
-        { series: { kind: 'resistor', id: 'R1', resistance: '1k', ratedPower: '0.25W', limitingVoltage: '200V' }, shunts: [] },
+        {
+          series: {
+            kind: 'fuse',
+            id: 'F1',
+            ratedCurrent: '100mA',
+            voltageRating: '400V',
+            meltingI2t: '0.02',
+          },
+          shunts: [
+            {
+              kind: 'zener',
+              id: 'Z1',
+              bidirectional: true,
+              zenerVoltage: '24V',
+              dynamicImpedance: '5',
+              powerRating: '5W',
+            },
+          ],
+        },
+        {
+          series: {
+            kind: 'resistor',
+            id: 'R1',
+            resistance: '1k',
+            ratedPower: '0.25W',
+            limitingVoltage: '200V',
+          },
+          shunts: [],
+        },
       ],
       input: { positiveRail: 24, negativeRail: 0, absMaxBeyondRail: 0.3, inputResistance: '10k' },
     });
-    const r = solveStress(guard, { kind: 'ac', rmsVoltage: 253, frequency: 50, sourceResistance: 20 }, CONDITIONS);
+    const r = solveStress(
+      guard,
+      { kind: 'ac', rmsVoltage: 253, frequency: 50, sourceResistance: 20 },
+      CONDITIONS,
+    );
     const f1 = r.elements.find((e) => e.elementId === 'F1')!;
     expect(f1.reason).toMatch(/opens the 100 mA fuse in about/);
   });
@@ -90,22 +150,53 @@ describe('verdict classes', () => {
     const guard: Guard = parseGuard({
       stages: [
         {
-          series: { kind: 'fuse', id: 'F1', ratedCurrent: '100mA', voltageRating: '250V', meltingI2t: '0.02', resistance: '1.5' },
-          shunts: [{ kind: 'tvs', id: 'TV1', bidirectional: true, standoffVoltage: '33V', breakdownVoltage: '36.7V', clampVoltage: '53.3V', peakPulseCurrent: '11.3A' }],
+          series: {
+            kind: 'fuse',
+            id: 'F1',
+            ratedCurrent: '100mA',
+            voltageRating: '250V',
+            meltingI2t: '0.02',
+            resistance: '1.5',
+          },
+          shunts: [
+            {
+              kind: 'tvs',
+              id: 'TV1',
+              bidirectional: true,
+              standoffVoltage: '33V',
+              breakdownVoltage: '36.7V',
+              clampVoltage: '53.3V',
+              peakPulseCurrent: '11.3A',
+            },
+          ],
         },
       ],
-      input: { positiveRail: 24, negativeRail: 0, absMaxBeyondRail: 0.3, inputResistance: '10k', internalClamps: true },
+      input: {
+        positiveRail: 24,
+        negativeRail: 0,
+        absMaxBeyondRail: 0.3,
+        inputResistance: '10k',
+        internalClamps: true,
+      },
     });
     const dc = solveStress(guard, { kind: 'dc', voltage: 60, sourceResistance: 2 }, CONDITIONS);
     const f1 = dc.elements.find((e) => e.elementId === 'F1')!;
     // I ≈ (60 − ~40 V) / 3.5 Ω ≈ 6 A: melting 0.02 A²s / 6² ≈ 0.6 ms
-    expect(f1.reason).toMatch(/opens the 100 mA fuse in about .*s \(melting I²t 20 mA²s\); the rest of the network is judged for that time/);
+    expect(f1.reason).toMatch(
+      /opens the 100 mA fuse in about .*s \(melting I²t 20 mA²s\); the rest of the network is judged for that time/,
+    );
     const tvs = dc.elements.find((e) => e.elementId === 'TV1')!;
     expect(tvs.checks[0].quantity).toBe('pulsePower');
     expect(tvs.reason).toMatch(/until F1 opens\)$/);
     // the same fault on AC is not credited (the opening time depends on the phase)
-    const ac = solveStress(guard, { kind: 'ac', rmsVoltage: 42, frequency: 50, sourceResistance: 2 }, CONDITIONS);
-    expect(ac.elements.find((e) => e.elementId === 'TV1')!.checks[0].quantity).not.toBe('pulsePower');
+    const ac = solveStress(
+      guard,
+      { kind: 'ac', rmsVoltage: 42, frequency: 50, sourceResistance: 2 },
+      CONDITIONS,
+    );
+    expect(ac.elements.find((e) => e.elementId === 'TV1')!.checks[0].quantity).not.toBe(
+      'pulsePower',
+    );
   });
 
   it('rail pump-up: clamp current into a lightly loaded 5 V rail fails in a steady fault', () => {
@@ -119,8 +210,15 @@ describe('verdict classes', () => {
 
   it('hazard on the return terminal reverses the polarity the guard sees', () => {
     const signal = solveStress(NETWORKS.tvsRail2, CASES.dc24, CONDITIONS);
-    const reversed = solveStress(NETWORKS.tvsRail2, { kind: 'dc', voltage: -28.8, sourceResistance: 0.1 }, CONDITIONS);
-    const returned = solveStress(NETWORKS.tvsRail2, CASES.dc24, { ...CONDITIONS, appliedTo: 'return' });
+    const reversed = solveStress(
+      NETWORKS.tvsRail2,
+      { kind: 'dc', voltage: -28.8, sourceResistance: 0.1 },
+      CONDITIONS,
+    );
+    const returned = solveStress(NETWORKS.tvsRail2, CASES.dc24, {
+      ...CONDITIONS,
+      appliedTo: 'return',
+    });
     expect(returned.sourcePeakCurrent).toBeCloseTo(reversed.sourcePeakCurrent, 12);
     expect(returned.sourcePeakCurrent).not.toBeCloseTo(signal.sourcePeakCurrent, 6);
     expect(returned.notes?.some((n) => n.includes('return terminal'))).toBe(true);
@@ -134,7 +232,11 @@ describe('verdict classes', () => {
   });
 
   it('TVS surge rating: 8/20-class pulses use ×5 of the 10/1000 µs peak pulse power (REFERENCE.md conservative default)', () => {
-    const r = solveStress(NETWORKS.tvsBi, { kind: 'surge', peakVoltage: 1000, couplingResistance: 40 }, CONDITIONS);
+    const r = solveStress(
+      NETWORKS.tvsBi,
+      { kind: 'surge', peakVoltage: 1000, couplingResistance: 40 },
+      CONDITIONS,
+    );
     const tvs = r.elements.find((e) => e.elementId === 'TV1')!;
     const check = tvs.checks.find((c) => c.quantity === 'pulsePower')!;
     expect(check.rating!).toBeGreaterThanOrEqual(600);

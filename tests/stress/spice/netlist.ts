@@ -39,7 +39,10 @@ export const NGSPICE = '/usr/bin/ngspice';
 export interface SpiceFigures {
   sourcePeakCurrent: number;
   /** Per element id (series and shunts). */
-  elements: Record<string, { peakCurrent: number; peakPower: number; average: number; energy: number; peakVoltage: number }>;
+  elements: Record<
+    string,
+    { peakCurrent: number; peakPower: number; average: number; energy: number; peakVoltage: number }
+  >;
   inputMaxV: number;
   inputMinV: number;
   points: number;
@@ -48,7 +51,8 @@ export interface SpiceFigures {
 const num = (x: number) => x.toPrecision(15);
 const maxOf = (values: number[]) => values.reduce((m, x) => (x > m ? x : m), -Infinity);
 const minOf = (values: number[]) => values.reduce((m, x) => (x < m ? x : m), Infinity);
-const maxAbs = (values: number[]) => values.reduce((m, x) => (Math.abs(x) > m ? Math.abs(x) : m), 0);
+const maxAbs = (values: number[]) =>
+  values.reduce((m, x) => (Math.abs(x) > m ? Math.abs(x) : m), 0);
 
 interface Plan {
   netlist: string;
@@ -68,7 +72,10 @@ export function buildNetlist(
   options: { cycles?: number; stepsPerCycle?: number; pulseEnd?: number; pulseStep?: number } = {},
 ): Plan {
   const net = compileGuard(guard);
-  const lines: string[] = ['* crossfault stress test netlist', '.options reltol=1e-6 abstol=1e-13 vntol=1e-9 chgtol=1e-18 itl4=100'];
+  const lines: string[] = [
+    '* crossfault stress test netlist',
+    '.options reltol=1e-6 abstol=1e-13 vntol=1e-9 chgtol=1e-18 itl4=100',
+  ];
   const vectors: string[] = ['v(t)', 'i(vsrc)'];
   lines.push(`Vrp rp 0 DC ${num(guard.input.positiveRail)}`);
   lines.push(`Vrn rn 0 DC ${num(guard.input.negativeRail)}`);
@@ -81,7 +88,11 @@ export function buildNetlist(
   switch (stressCase.kind) {
     case 'dc':
       lines.push(`Vs s 0 DC ${num(sign * stressCase.voltage)}`);
-      lines.push(stressCase.sourceResistance > 0 ? `Rsrc s sa ${num(stressCase.sourceResistance)}` : 'Vsrcshort s sa 0');
+      lines.push(
+        stressCase.sourceResistance > 0
+          ? `Rsrc s sa ${num(stressCase.sourceResistance)}`
+          : 'Vsrcshort s sa 0',
+      );
       analysis = '.op';
       steady = true;
       dc = true;
@@ -90,8 +101,14 @@ export function buildNetlist(
       const period = 1 / stressCase.frequency;
       const cycles = options.cycles ?? 3;
       const steps = options.stepsPerCycle ?? 4000;
-      lines.push(`Vs s 0 SIN(0 ${num(sign * stressCase.rmsVoltage * Math.SQRT2)} ${num(stressCase.frequency)})`);
-      lines.push(stressCase.sourceResistance > 0 ? `Rsrc s sa ${num(stressCase.sourceResistance)}` : 'Vsrcshort s sa 0');
+      lines.push(
+        `Vs s 0 SIN(0 ${num(sign * stressCase.rmsVoltage * Math.SQRT2)} ${num(stressCase.frequency)})`,
+      );
+      lines.push(
+        stressCase.sourceResistance > 0
+          ? `Rsrc s sa ${num(stressCase.sourceResistance)}`
+          : 'Vsrcshort s sa 0',
+      );
       analysis = `.tran ${num(period / steps)} ${num(cycles * period)} 0 ${num(period / steps)}`;
       from = (cycles - 1) * period;
       to = cycles * period;
@@ -100,7 +117,9 @@ export function buildNetlist(
     }
     case 'surge': {
       const k = (sign * stressCase.peakVoltage) / SURGE_SHAPE_PEAK;
-      lines.push(`Bs s 0 V=${num(k)}*(exp(-time/${num(SURGE_TAU_TAIL)})-exp(-time/${num(SURGE_TAU_FRONT)}))`);
+      lines.push(
+        `Bs s 0 V=${num(k)}*(exp(-time/${num(SURGE_TAU_TAIL)})-exp(-time/${num(SURGE_TAU_FRONT)}))`,
+      );
       lines.push(`Rsrc s sa ${num(SURGE_GENERATOR_IMPEDANCE + stressCase.couplingResistance)}`);
       const end = options.pulseEnd ?? 8 * SURGE_TAU_TAIL;
       analysis = `.tran ${num(options.pulseStep ?? 10e-9)} ${num(end)} 0 ${num(options.pulseStep ?? 10e-9)}`;
@@ -133,7 +152,8 @@ export function buildNetlist(
     vectors.push(`v(n${k})`, `i(vs${k})`);
   }
   // shunt branches
-  const refNode = (rail: 'common' | 'positiveRail' | 'negativeRail') => (rail === 'common' ? '0' : rail === 'positiveRail' ? 'rp' : 'rn');
+  const refNode = (rail: 'common' | 'positiveRail' | 'negativeRail') =>
+    rail === 'common' ? '0' : rail === 'positiveRail' ? 'rp' : 'rn';
   net.branchSpecs.forEach((spec, b) => {
     const node = `n${net.branchNode[b]}`;
     const ref = refNode(spec.reference);
@@ -146,11 +166,15 @@ export function buildNetlist(
         break;
       case 2: // power law
         lines.push(`Vb${b} ${node} x${b} 0`);
-        lines.push(`Bb${b} x${b} ${ref} I=${num(spec.i1!)}*sgn(V(x${b})-V(${ref}))*pow(abs(V(x${b})-V(${ref}))/${num(spec.v1!)},${num(spec.alpha!)})`);
+        lines.push(
+          `Bb${b} x${b} ${ref} I=${num(spec.i1!)}*sgn(V(x${b})-V(${ref}))*pow(abs(V(x${b})-V(${ref}))/${num(spec.v1!)},${num(spec.alpha!)})`,
+        );
         break;
       case 1: {
         const j = spec.junction!;
-        lines.push(`.model DJ${b} D(IS=${num(j.saturationCurrent)} N=${num(j.emission)} RS=${num(j.seriesResistance)})`);
+        lines.push(
+          `.model DJ${b} D(IS=${num(j.saturationCurrent)} N=${num(j.emission)} RS=${num(j.seriesResistance)})`,
+        );
         if (spec.direction === 1) {
           // node → offset → diode → ref ; Vb carries the branch current node→ref
           lines.push(`Vb${b} ${node} x${b} DC ${num(j.offset)}`, `Db${b} x${b} ${ref} DJ${b}`);
@@ -177,7 +201,9 @@ function runNgspice(plan: Plan): { names: string[]; rows: number[][] } {
       'set wr_vecnames',
       'option numdgt=15',
       'run',
-      plan.dc ? `print ${plan.vectors.join(' ')} > ${out}` : `wrdata ${out} ${plan.vectors.join(' ')}`,
+      plan.dc
+        ? `print ${plan.vectors.join(' ')} > ${out}`
+        : `wrdata ${out} ${plan.vectors.join(' ')}`,
       '.endc',
       '.end',
     ].join('\n');
@@ -208,7 +234,11 @@ function runNgspice(plan: Plan): { names: string[]; rows: number[][] } {
       return { names, rows: [[0, ...rowValues]] };
     }
     const lines = text.trim().split('\n');
-    const names = lines[0].trim().split(/\s+/).slice(1).map((n) => n.toLowerCase());
+    const names = lines[0]
+      .trim()
+      .split(/\s+/)
+      .slice(1)
+      .map((n) => n.toLowerCase());
     const rows = lines.slice(1).map((l) => l.trim().split(/\s+/).map(Number));
     return { names, rows };
   } finally {
@@ -217,7 +247,12 @@ function runNgspice(plan: Plan): { names: string[]; rows: number[][] } {
 }
 
 /** Run ngspice on the guard and case and reduce to the engine's figures (same definitions). */
-export function spiceFigures(guard: Guard, stressCase: StressCase, sign: 1 | -1 = 1, options: Parameters<typeof buildNetlist>[3] = {}): SpiceFigures {
+export function spiceFigures(
+  guard: Guard,
+  stressCase: StressCase,
+  sign: 1 | -1 = 1,
+  options: Parameters<typeof buildNetlist>[3] = {},
+): SpiceFigures {
   const plan = buildNetlist(guard, stressCase, sign, options);
   const { names, rows } = runNgspice(plan);
   const col = (name: string) => {
@@ -226,10 +261,14 @@ export function spiceFigures(guard: Guard, stressCase: StressCase, sign: 1 | -1 
     return k + 1;
   };
   const net = plan.net;
-  const selected = plan.dc ? rows : rows.filter((r) => r[0] >= plan.from - 1e-15 && r[0] <= plan.to + 1e-15);
+  const selected = plan.dc
+    ? rows
+    : rows.filter((r) => r[0] >= plan.from - 1e-15 && r[0] <= plan.to + 1e-15);
   const t = selected.map((r) => r[0]);
   const series = (k: number) => ({
-    v: selected.map((r) => (k === 0 ? r[col('v(t)')] : r[col(`v(n${k - 1})`)]) - r[col(`v(n${k})`)]),
+    v: selected.map(
+      (r) => (k === 0 ? r[col('v(t)')] : r[col(`v(n${k - 1})`)]) - r[col(`v(n${k})`)],
+    ),
     i: selected.map((r) => r[col(`i(vs${k})`)]),
   });
   const branchCurrent = (b: number) => {
@@ -261,11 +300,15 @@ export function spiceFigures(guard: Guard, stressCase: StressCase, sign: 1 | -1 
       p = v.map((x, k) => x * i[k]);
       peakCurrent = maxAbs(i);
     } else {
-      const branches = net.branchSpecs.map((_, b) => b).filter((b) => net.branchElement[b] === index);
+      const branches = net.branchSpecs
+        .map((_, b) => b)
+        .filter((b) => net.branchElement[b] === index);
       const node = selected.map((r) => r[col(`v(n${info.node})`)]);
       const currents = branches.map(branchCurrent);
       i = node.map((_, k) => currents.reduce((acc, c) => acc + c[k], 0));
-      p = node.map((x, k) => branches.reduce((acc, b, m) => acc + currents[m][k] * (x - refV(b)), 0));
+      p = node.map((x, k) =>
+        branches.reduce((acc, b, m) => acc + currents[m][k] * (x - refV(b)), 0),
+      );
       v = node.map((x) => maxAbs(branches.map((b) => x - refV(b))));
       peakCurrent = info.kind === 'railDiodes' ? maxOf(currents.map(maxAbs)) : maxAbs(i);
     }
