@@ -100,8 +100,20 @@ export function ScheduleTable({
     return () => clearTimeout(t);
   }, [qDraft, q, setParams]);
 
-  const sorting: SortingState = sortId ? [{ id: sortId, desc: sortDir === 'desc' }] : [];
-  const visibility: VisibilityState = Object.fromEntries(SCHEDULE_COLUMNS.map((c) => [c.id, !hidden.includes(c.id)]));
+  // Stable identities: react-table recomputes its row models (and would reset its own state)
+  // whenever these change, so a fresh array each render would loop.
+  const sorting: SortingState = useMemo(() => (sortId ? [{ id: sortId, desc: sortDir === 'desc' }] : []), [sortId, sortDir]);
+  const visibility: VisibilityState = useMemo(
+    () => Object.fromEntries(SCHEDULE_COLUMNS.map((c) => [c.id, !hidden.includes(c.id)])),
+    [hidden],
+  );
+  const columnFilters = useMemo(
+    () => [
+      ...(classFilter ? [{ id: 'circuit_class', value: classFilter }] : []),
+      ...(stripFilter ? [{ id: 'strip', value: stripFilter }] : []),
+    ],
+    [classFilter, stripFilter],
+  );
 
   const lookup: LookupContext = useMemo(
     () => ({
@@ -157,11 +169,10 @@ export function ScheduleTable({
       sorting,
       columnVisibility: visibility,
       globalFilter: qDraft,
-      columnFilters: [
-        ...(classFilter ? [{ id: 'circuit_class', value: classFilter }] : []),
-        ...(stripFilter ? [{ id: 'strip', value: stripFilter }] : []),
-      ],
+      columnFilters,
     },
+    // No paging here (the rows are virtualised): nothing for the table to reset on its own.
+    autoResetAll: false,
     globalFilterFn: matchesText,
     getRowId: (row) => String(row.id),
     getCoreRowModel: getCoreRowModel(),
@@ -554,7 +565,7 @@ export function ScheduleTable({
           onKeyDown={onGridKeyDown}
           onPaste={onPaste}
           onFocus={() => {
-            if (!active && rows.length > 0) setActive({ row: 0, col: 0 });
+            if (rows.length > 0) setActive((a) => a ?? { row: 0, col: 0 });
           }}
           className="outline-none"
           style={{ width: totalWidth }}
