@@ -17,26 +17,22 @@ export const seriesArb = (id: string): fc.Arbitrary<SeriesElement> =>
       limitingVoltage: 200,
     })),
     logUniform(0.01, 10).map((r) => ({ kind: 'wire' as const, id, resistance: r })),
-    fc
-      .tuple(logUniform(0.05, 2), logUniform(0.5, 50))
-      .map(([i, r]) => ({
-        kind: 'fuse' as const,
-        id,
-        ratedCurrent: i,
-        resistance: r,
-        voltageRating: 250,
-        meltingI2t: 0.01,
-      })),
-    fc
-      .tuple(logUniform(1, 50), logUniform(0.02, 0.5))
-      .map(([r, i]) => ({
-        kind: 'ptc' as const,
-        id,
-        resistance: r,
-        holdCurrent: i,
-        tripCurrent: 2 * i,
-        maxVoltage: 60,
-      })),
+    fc.tuple(logUniform(0.05, 2), logUniform(0.5, 50)).map(([i, r]) => ({
+      kind: 'fuse' as const,
+      id,
+      ratedCurrent: i,
+      resistance: r,
+      voltageRating: 250,
+      meltingI2t: 0.01,
+    })),
+    fc.tuple(logUniform(1, 50), logUniform(0.02, 0.5)).map(([r, i]) => ({
+      kind: 'ptc' as const,
+      id,
+      resistance: r,
+      holdCurrent: i,
+      tripCurrent: 2 * i,
+      maxVoltage: 60,
+    })),
   );
 
 export const shuntArb = (id: string): fc.Arbitrary<ShuntElement> =>

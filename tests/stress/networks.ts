@@ -284,6 +284,38 @@ export const NETWORKS: Record<string, Guard> = {
     ],
     input: { ...input24, inputResistance: '10k' },
   }),
+  /** A slow filter: 47 kΩ into 1 µF (τ ≈ 47 ms, several mains periods), then a 5.1 V zener. */
+  slowFilter: parseGuard({
+    stages: [
+      {
+        series: {
+          kind: 'resistor',
+          id: 'R1',
+          resistance: '47k',
+          ratedPower: '0.5W',
+          limitingVoltage: '350V',
+        },
+        shunts: [
+          { kind: 'capacitor', id: 'C1', capacitance: '1u', voltageRating: '16V' },
+          {
+            kind: 'zener',
+            id: 'Z1',
+            bidirectional: false,
+            zenerVoltage: '5.1V',
+            testCurrent: '5mA',
+            dynamicImpedance: '60',
+            powerRating: '0.3W',
+          },
+        ],
+      },
+    ],
+    input: {
+      positiveRail: '5V',
+      negativeRail: 0,
+      absMaxBeyondRail: '0.3V',
+      inputResistance: '100k',
+    },
+  }),
   /** ESD capacitor at the terminal, 47 Ω, rail diodes to a 5 V rail with little load. */
   esdCapRail: parseGuard({
     stages: [

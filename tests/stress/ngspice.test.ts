@@ -59,6 +59,13 @@ const PAIRS: Pair[] = [
     spice: { cycles: 3 },
   },
   { network: 'filterCap', case: 'surge1k', what: 'surge with a filter capacitor' },
+  // τ = 1 µF × 47.0005 kΩ ≈ 47 ms: the engine settles ceil(5τ/T) = 12 cycles, ngspice runs the same 12 + 1
+  {
+    network: 'slowFilter',
+    case: 'ac230',
+    what: 'AC 50 Hz through a slow RC filter (settling over 12 cycles)',
+    spice: { cycles: 13, stepsPerCycle: 2000 },
+  },
   {
     network: 'esdCapRail',
     case: 'esd8k',
