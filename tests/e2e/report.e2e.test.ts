@@ -137,6 +137,28 @@ describe('risk report', () => {
     await page.close();
   });
 
+  it('the channel page works with the keyboard: Tab to another case, Enter opens it', async () => {
+    const page = await openAs('engineer');
+    await page.goto(`${BASE_URL()}${projectPath}/audit`);
+    await page.locator('[data-finding-link]').first().click();
+    await page.waitForURL(/\/audit\/channels\/\d+/);
+    const nav = page.getByRole('navigation', { name: 'Stress cases of this channel' });
+    await nav.waitFor();
+    const target = nav.getByRole('link').filter({ hasNot: page.locator('[aria-current]') }).last();
+    const href = (await target.getAttribute('href'))!;
+    const caseParam = new URL(href, BASE_URL()).searchParams.get('case')!;
+    let reached = false;
+    for (let k = 0; k < 200 && !reached; k++) {
+      await page.keyboard.press('Tab');
+      reached = await page.evaluate((h) => document.activeElement?.getAttribute('href') === h, href);
+    }
+    expect(reached).toBe(true);
+    await page.keyboard.press('Enter');
+    await page.waitForURL((u) => u.searchParams.get('case') === caseParam);
+    await expect(nav.locator('[aria-current="true"]').getAttribute('href')).resolves.toBe(href);
+    await page.close();
+  });
+
   it('screens are laid out for 1024×768 too', async () => {
     const page = await openAs('engineer', 1024, 768);
     await page.goto(`${BASE_URL()}${projectPath}`);
