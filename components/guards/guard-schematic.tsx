@@ -9,6 +9,8 @@ const SERIES_W = 96;
 const SHUNT_PITCH = 70;
 const INPUT_W = 128;
 const LEFT = 56;
+/** Drawn larger than its units so 10 px labels read at arm's length on a tablet. */
+const SCALE = 1.5;
 
 function valueText(element: SeriesElement | ShuntElement): string {
   const fig = mainFigure(element);
@@ -214,8 +216,8 @@ export function GuardSchematic({
     <div className="overflow-x-auto">
       <svg
         viewBox={`0 0 ${width} ${height}`}
-        width={width}
-        height={height}
+        width={width * SCALE}
+        height={height * SCALE}
         role="img"
         aria-label={`${title}: ${guard.stages.length} stages${guard.stages.length ? ', ' : ''}${guard.stages
           .map((s) => [s.series.id, ...s.shunts.map((sh) => sh.id)].join(' + '))
