@@ -444,7 +444,7 @@ function ElementEditor({
   const idError = errors[pathOf('id')];
   const uid = useId();
   return (
-    <fieldset className="rounded-sm border border-line p-3">
+    <fieldset className="min-w-0 rounded-sm border border-line p-3">
       <legend className="px-1 text-sm font-medium">{role}</legend>
       <div className="mb-2 flex flex-wrap items-end gap-3">
         <label className="flex flex-col text-xs text-muted">

@@ -2,7 +2,7 @@
 
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useQuery, useQueryClient } from '@tanstack/react-query';
-import { useMemo, useState, type FormEvent } from 'react';
+import { useEffect, useMemo, useState, type FormEvent } from 'react';
 import { useForm } from 'react-hook-form';
 import { Field } from '@/components/ui/field';
 import { Input } from '@/components/ui/input';
@@ -119,6 +119,10 @@ export function ChannelForm({
       notes: channel?.notes ?? null,
     },
   });
+  // The recipe list arrives after the form: put the stored choice back once its option exists.
+  useEffect(() => {
+    if (recipes.data) setValue('guardRecipeId', channel?.guardRecipeId ?? null);
+  }, [recipes.data, channel?.guardRecipeId, setValue]);
   const recipeId = watch('guardRecipeId');
   const recipe = recipes.data?.items.find((r) => r.id === recipeId);
   const [overrideDraft, setOverrideDraft] = useState<OverrideDraft | null>(null);
@@ -186,7 +190,7 @@ export function ChannelForm({
 
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
-      <fieldset disabled={readOnly} className="grid gap-3 sm:grid-cols-3">
+      <fieldset disabled={readOnly} className="grid min-w-0 gap-3 sm:grid-cols-3">
         <Field id="c-tag" label="Tag" hint="Unique in the project, e.g. TT-2104" error={e('tag')}>
           <Input {...ariaFor('c-tag', e('tag'))} className="font-mono" {...register('tag')} />
         </Field>
@@ -224,7 +228,7 @@ export function ChannelForm({
       </fieldset>
 
       {recipe ? (
-        <fieldset disabled={readOnly} className="space-y-3 rounded-sm border border-line p-3">
+        <fieldset disabled={readOnly} className="min-w-0 space-y-3 rounded-sm border border-line p-3">
           <legend className="px-1 text-sm font-medium">As-built overrides of “{recipe.name}” for this channel</legend>
           <p className="text-xs text-muted">
             Leave a figure blank to use the recipe&apos;s value (shown greyed). Overridden elements are drawn in the accent colour.

@@ -144,7 +144,7 @@ export function TerminalForm({
           </select>
         </Field>
       </div>
-      <fieldset className="grid gap-3 rounded-sm border border-line p-3 sm:grid-cols-3">
+      <fieldset className="grid min-w-0 gap-3 rounded-sm border border-line p-3 sm:grid-cols-3">
         <legend className="px-1 text-sm font-medium">Electrical facts</legend>
         <Field id="t-circuitClass" label="Circuit class" error={e('circuitClass')}>
           <select {...ariaFor('t-circuitClass', e('circuitClass'))} className={selectClass} {...register('circuitClass')}>
