@@ -125,6 +125,15 @@ describe('risk report', () => {
     const rows = page.locator('table[aria-label="Findings"] tbody tr');
     await rows.first().waitFor();
     for (const v of await rows.evaluateAll((trs) => trs.map((tr) => tr.getAttribute('data-verdict')))) expect(v).toBe('fails');
+    // The CSV export carries the same filters.
+    const csvHref = (await page.getByRole('link', { name: 'Export CSV' }).getAttribute('href'))!;
+    expect(csvHref).toMatch(/verdict=fails/);
+    expect(csvHref).toMatch(/caseKind=surge/);
+    const csv = await page.request.get(`${BASE_URL()}${csvHref}`);
+    expect(csv.status()).toBe(200);
+    expect(csv.headers()['content-type']).toMatch(/text\/csv/);
+    const lines = (await csv.text()).trim().split('\n');
+    expect(lines.length - 1).toBe(Number((await page.getByText(/^\(\d+ of \d+\)$/).textContent())!.match(/\((\d+)/)![1]));
     // Tab from the top of the page until a finding's link has focus, then Enter opens it.
     let reached = false;
     for (let k = 0; k < 80 && !reached; k++) {

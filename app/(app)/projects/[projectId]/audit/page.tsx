@@ -7,7 +7,7 @@ import { VerdictBadge } from '@/components/report/verdict-badge';
 import { Caution } from '@/components/ui/caution';
 import { Panel, PanelTitle } from '@/components/ui/panel';
 import { can } from '@/lib/auth/permissions';
-import { getAuditRun, getAuditStatus, latestRunId, listFindings, type StoredFinding } from '@/lib/data/audits';
+import { getAuditRun, getAuditStatus, getRunSnapshot, latestRunId, listFindings, type StoredFinding } from '@/lib/data/audits';
 import { getSignedInUser, loadStanding } from '@/lib/data/membership';
 import { formatMargin, VERDICT_LABEL, VERDICT_ORDER } from '@/lib/report/format';
 import {
@@ -89,6 +89,7 @@ export default async function FindingsPage({
   }
 
   const detail = await getAuditRun(projectId, runId);
+  const assumed = (await getRunSnapshot(projectId, runId)).settings;
   const all = (await listFindings(projectId, runId, { pageSize: 2000, all: true })).items;
   const filtered = (await listFindings(projectId, runId, { ...toFindingFilters(query), all: true })).items.filter((f) =>
     matchesMechanism(query, f.mechanism),
@@ -136,10 +137,11 @@ export default async function FindingsPage({
           <p className="text-sm text-muted">
             Run #{detail.run.id} of {new Date(detail.run.createdAt).toLocaleString('en-GB', { timeZone: 'UTC' })} UTC
             {detail.run.createdBy && <> by {detail.run.createdBy.name}</>} · review: {detail.run.reviewState}
+            {' · '}
             {status.stale ? (
-              <strong className="ml-2 text-caution">schedule changed since this run</strong>
+              <strong className="text-caution">schedule changed since this run</strong>
             ) : (
-              <span className="ml-2">up to date with the schedule</span>
+              <span>up to date with the schedule</span>
             )}
           </p>
         </div>
@@ -147,6 +149,16 @@ export default async function FindingsPage({
       </div>
 
       <Caution />
+
+      <p className="text-sm text-muted" data-testid="run-assumptions">
+        Assumptions of this run: supply tolerance +{Math.round(assumed.supplyTolerance * 1000) / 10} %, DC supply maximum{' '}
+        {assumed.dcSupplyMax} V, surge {assumed.surgeLevelKv} kV ({assumed.surgeCoupling} coupling), ESD {assumed.esdLevelKv} kV
+        contact, cabinet ambient {assumed.ambientC} °C, derating to {Math.round(assumed.powerDerating * 100)} % of rated power and{' '}
+        {Math.round(assumed.voltageDerating * 100)} % of rated voltage.{' '}
+        <Link href={`/projects/${projectId}/settings`} className="underline underline-offset-2">
+          {can(standing, 'settings:write') ? 'Edit the assumptions' : 'See the assumptions'}
+        </Link>
+      </p>
 
       {summary && (
         <section aria-label="Channels by verdict" className="grid grid-cols-2 gap-3 sm:grid-cols-5">
