@@ -18,7 +18,10 @@ export function CaseCalculations({
   waveform,
 }: {
   guard: Guard;
-  result: Pick<StressResult, 'case' | 'verdict' | 'reason' | 'elements' | 'input' | 'rails' | 'sourcePeakCurrent'>;
+  result: Pick<
+    StressResult,
+    'case' | 'verdict' | 'reason' | 'elements' | 'input' | 'rails' | 'sourcePeakCurrent'
+  >;
   conditions: StressConditions;
   basis?: string;
   label?: string;
@@ -46,7 +49,11 @@ export function CaseCalculations({
               </div>
             ))}
             <dt className="text-muted">Applied to</dt>
-            <dd>{conditions.appliedTo === 'return' ? 'the return terminal (reversed polarity)' : 'the signal terminal'}</dd>
+            <dd>
+              {conditions.appliedTo === 'return'
+                ? 'the return terminal (reversed polarity)'
+                : 'the signal terminal'}
+            </dd>
             {basis && (
               <>
                 <dt className="text-muted">Source</dt>
@@ -56,14 +63,20 @@ export function CaseCalculations({
           </dl>
         </div>
         <div>
-          <h4 className="mb-1 text-xs font-semibold tracking-wide text-muted uppercase">Assumptions</h4>
+          <h4 className="mb-1 text-xs font-semibold tracking-wide text-muted uppercase">
+            Assumptions
+          </h4>
           <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm">
             <dt className="text-muted">Cabinet ambient</dt>
             <dd className="font-mono">{conditions.ambientC} °C</dd>
             <dt className="text-muted">Power derating</dt>
-            <dd className="font-mono">use ≤ {Math.round(conditions.powerDerating * 100)} % of rating</dd>
+            <dd className="font-mono">
+              use ≤ {Math.round(conditions.powerDerating * 100)} % of rating
+            </dd>
             <dt className="text-muted">Voltage derating</dt>
-            <dd className="font-mono">use ≤ {Math.round(conditions.voltageDerating * 100)} % of rating</dd>
+            <dd className="font-mono">
+              use ≤ {Math.round(conditions.voltageDerating * 100)} % of rating
+            </dd>
           </dl>
         </div>
       </div>
@@ -77,10 +90,16 @@ export function CaseCalculations({
 
       {lines.length > 0 && (
         <div>
-          <h4 className="mb-2 text-xs font-semibold tracking-wide text-muted uppercase">Calculations</h4>
+          <h4 className="mb-2 text-xs font-semibold tracking-wide text-muted uppercase">
+            Calculations
+          </h4>
           <ol className="space-y-2">
             {lines.map((l) => (
-              <li key={l.id} className="rounded-sm border border-line p-2 text-sm" data-formula={l.id}>
+              <li
+                key={l.id}
+                className="rounded-sm border border-line p-2 text-sm"
+                data-formula={l.id}
+              >
                 <div className="text-muted">{l.title}</div>
                 <div className="font-mono break-words">
                   {l.symbolic} = {l.substituted} = <strong>{l.result.text}</strong>
@@ -93,20 +112,40 @@ export function CaseCalculations({
       )}
 
       <div>
-        <h4 className="mb-2 text-xs font-semibold tracking-wide text-muted uppercase">Stress against rating</h4>
+        <h4 className="mb-2 text-xs font-semibold tracking-wide text-muted uppercase">
+          Stress against rating
+        </h4>
         <div className="overflow-x-auto">
           <table className="w-full text-sm">
-            <caption className="sr-only">Every element&apos;s stress against its derated rating</caption>
+            <caption className="sr-only">
+              Every element&apos;s stress against its derated rating
+            </caption>
             <thead className="text-left text-xs text-muted">
               <tr>
-                <th scope="col" className="py-1 pr-3 font-medium">Element</th>
-                <th scope="col" className="py-1 pr-3 font-medium">Peak V / peak I</th>
-                <th scope="col" className="py-1 pr-3 font-medium">Quantity</th>
-                <th scope="col" className="py-1 pr-3 text-right font-medium">Stress</th>
-                <th scope="col" className="py-1 pr-3 text-right font-medium">Rated</th>
-                <th scope="col" className="py-1 pr-3 text-right font-medium">Derated</th>
-                <th scope="col" className="py-1 pr-3 text-right font-medium">Margin</th>
-                <th scope="col" className="py-1 font-medium">Verdict</th>
+                <th scope="col" className="py-1 pr-3 font-medium">
+                  Element
+                </th>
+                <th scope="col" className="py-1 pr-3 font-medium">
+                  Peak V / peak I
+                </th>
+                <th scope="col" className="py-1 pr-3 font-medium">
+                  Quantity
+                </th>
+                <th scope="col" className="py-1 pr-3 text-right font-medium">
+                  Stress
+                </th>
+                <th scope="col" className="py-1 pr-3 text-right font-medium">
+                  Rated
+                </th>
+                <th scope="col" className="py-1 pr-3 text-right font-medium">
+                  Derated
+                </th>
+                <th scope="col" className="py-1 pr-3 text-right font-medium">
+                  Margin
+                </th>
+                <th scope="col" className="py-1 font-medium">
+                  Verdict
+                </th>
               </tr>
             </thead>
             <tbody>
@@ -115,10 +154,17 @@ export function CaseCalculations({
                 return rows.map((c, k) => {
                   const cells = c ? checkCells(c) : null;
                   return (
-                    <tr key={`${e.elementId}-${k}`} className={k === 0 ? 'border-t border-line align-top' : 'align-top'}>
+                    <tr
+                      key={`${e.elementId}-${k}`}
+                      className={k === 0 ? 'border-t border-line align-top' : 'align-top'}
+                    >
                       {k === 0 && (
                         <>
-                          <th scope="row" rowSpan={rows.length} className="py-1.5 pr-3 text-left font-mono font-semibold">
+                          <th
+                            scope="row"
+                            rowSpan={rows.length}
+                            className="py-1.5 pr-3 text-left font-mono font-semibold"
+                          >
                             {e.elementId}
                             <span className="block text-xs font-normal text-muted">{e.kind}</span>
                           </th>
@@ -132,7 +178,11 @@ export function CaseCalculations({
                       <td className="py-1.5 pr-3 text-right font-mono">{cells?.value ?? '—'}</td>
                       <td className="py-1.5 pr-3 text-right font-mono">
                         {cells?.rating ?? '—'}
-                        {cells?.atAmbient && <span className="block text-xs text-muted">{cells.atAmbient} at ambient</span>}
+                        {cells?.atAmbient && (
+                          <span className="block text-xs text-muted">
+                            {cells.atAmbient} at ambient
+                          </span>
+                        )}
                       </td>
                       <td className="py-1.5 pr-3 text-right font-mono">{cells?.derated ?? '—'}</td>
                       <td className="py-1.5 pr-3 text-right font-mono">{cells?.margin ?? '—'}</td>
@@ -144,7 +194,9 @@ export function CaseCalculations({
                 });
               })}
               <tr className="border-t border-line align-top">
-                <th scope="row" className="py-1.5 pr-3 text-left font-semibold">Protected input</th>
+                <th scope="row" className="py-1.5 pr-3 text-left font-semibold">
+                  Protected input
+                </th>
                 <td className="py-1.5 pr-3 font-mono">
                   {formatEng(result.input.peakVoltage, 'V')}
                   <span className="block">{formatEng(result.input.peakCurrent, 'A')}</span>
@@ -158,20 +210,30 @@ export function CaseCalculations({
               </tr>
               {result.rails.map((r) => (
                 <tr key={r.rail} className="border-t border-line align-top">
-                  <th scope="row" className="py-1.5 pr-3 text-left font-semibold">{r.rail === 'positive' ? 'Positive rail' : 'Negative rail'}</th>
+                  <th scope="row" className="py-1.5 pr-3 text-left font-semibold">
+                    {r.rail === 'positive' ? 'Positive rail' : 'Negative rail'}
+                  </th>
                   <td className="py-1.5 pr-3 font-mono">{formatEng(r.injectedCurrent, 'A')}</td>
                   <td colSpan={5} className="py-1.5 pr-3 text-sm">
-                    injected; minimum load {r.minLoad === null ? 'not given' : formatEng(r.minLoad, 'A')}
-                    {r.pumpsUp === true ? ': the rail can rise' : r.pumpsUp === false ? ': absorbed' : ''}
+                    injected; minimum load{' '}
+                    {r.minLoad === null ? 'not given' : formatEng(r.minLoad, 'A')}
+                    {r.pumpsUp === true
+                      ? ': the rail can rise'
+                      : r.pumpsUp === false
+                        ? ': absorbed'
+                        : ''}
                   </td>
-                  <td className="py-1.5 text-xs text-muted">{r.pumpsUp === true ? 'pump-up' : ''}</td>
+                  <td className="py-1.5 text-xs text-muted">
+                    {r.pumpsUp === true ? 'pump-up' : ''}
+                  </td>
                 </tr>
               ))}
             </tbody>
           </table>
         </div>
         <p className="mt-1 text-xs text-muted">
-          Margin = (derated − stress) / derated; {formatMargin(0.2)} means 20 % of the derated rating is left.
+          Margin = (derated − stress) / derated; {formatMargin(0.2)} means 20 % of the derated
+          rating is left.
         </p>
       </div>
     </div>

@@ -1,6 +1,11 @@
 'use client';
 
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import {
+  createColumnHelper,
+  flexRender,
+  getCoreRowModel,
+  useReactTable,
+} from '@tanstack/react-table';
 import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { useMemo } from 'react';
@@ -32,7 +37,8 @@ export interface FindingRow {
 const column = createColumnHelper<FindingRow>();
 
 function hrefOf(projectId: number, r: FindingRow): string | null {
-  if (r.channelId !== null) return `/projects/${projectId}/audit/channels/${r.channelId}?case=${encodeURIComponent(r.key)}#case`;
+  if (r.channelId !== null)
+    return `/projects/${projectId}/audit/channels/${r.channelId}?case=${encodeURIComponent(r.key)}#case`;
   if (r.stripId !== null) return `/projects/${projectId}/audit/strips/${r.stripId}`;
   return null;
 }
@@ -67,7 +73,11 @@ export function FindingsTable({
           const href = hrefOf(projectId, r);
           const text = r.channelTag ?? (r.kind === 'stress' ? '—' : `strip ${r.stripTag ?? '?'}`);
           return href ? (
-            <Link href={href} className="font-mono font-medium whitespace-nowrap underline-offset-2 hover:underline" data-finding-link>
+            <Link
+              href={href}
+              className="font-mono font-medium whitespace-nowrap underline-offset-2 hover:underline"
+              data-finding-link
+            >
               {text}
             </Link>
           ) : (
@@ -79,7 +89,11 @@ export function FindingsTable({
         header: 'Case',
         cell: (c) => {
           const r = c.row.original;
-          return r.kind === 'stress' ? (c.getValue() ?? '—') : r.kind === 'segregation' ? 'Segregation' : 'Wire colour';
+          return r.kind === 'stress'
+            ? (c.getValue() ?? '—')
+            : r.kind === 'segregation'
+              ? 'Segregation'
+              : 'Wire colour';
         },
       }),
       column.accessor('mechanism', {
@@ -90,7 +104,9 @@ export function FindingsTable({
           return (
             <span>
               {m ? (MECHANISM_LABEL[m as keyof typeof MECHANISM_LABEL] ?? m) : '—'}
-              {r.hazardLabel && <span className="block font-mono text-xs text-muted">from {r.hazardLabel}</span>}
+              {r.hazardLabel && (
+                <span className="block font-mono text-xs text-muted">from {r.hazardLabel}</span>
+              )}
             </span>
           );
         },
@@ -102,11 +118,17 @@ export function FindingsTable({
       }),
       column.accessor('margin', {
         header: () => (
-          <Link href={marginSortHref} className="underline-offset-2 hover:underline" aria-label={`Margin, ${marginSortLabel}`}>
+          <Link
+            href={marginSortHref}
+            className="underline-offset-2 hover:underline"
+            aria-label={`Margin, ${marginSortLabel}`}
+          >
             Margin <span aria-hidden>{marginSortLabel.includes('ascending') ? '▲' : '▼'}</span>
           </Link>
         ),
-        cell: (c) => <span className="font-mono whitespace-nowrap">{formatMargin(c.getValue())}</span>,
+        cell: (c) => (
+          <span className="font-mono whitespace-nowrap">{formatMargin(c.getValue())}</span>
+        ),
       }),
       column.accessor('reason', {
         header: 'Why',
@@ -115,7 +137,9 @@ export function FindingsTable({
           return (
             <span className="text-sm">
               {r.delta && (
-                <span className="mr-1 rounded-sm border border-accent px-1 text-xs text-accent">{r.delta === 'new' ? 'new' : 'changed'}</span>
+                <span className="mr-1 rounded-sm border border-accent px-1 text-xs text-accent">
+                  {r.delta === 'new' ? 'new' : 'changed'}
+                </span>
               )}
               {c.getValue()}
             </span>
@@ -128,7 +152,8 @@ export function FindingsTable({
 
   const table = useReactTable({ data: rows, columns, getCoreRowModel: getCoreRowModel() });
 
-  if (rows.length === 0) return <p className="py-6 text-sm text-muted">No findings match these filters.</p>;
+  if (rows.length === 0)
+    return <p className="py-6 text-sm text-muted">No findings match these filters.</p>;
 
   return (
     <div className="overflow-x-auto">
@@ -140,7 +165,13 @@ export function FindingsTable({
                 <th
                   key={h.id}
                   scope="col"
-                  aria-sort={h.column.id === 'margin' ? (marginSortLabel.includes('ascending') ? 'ascending' : 'descending') : undefined}
+                  aria-sort={
+                    h.column.id === 'margin'
+                      ? marginSortLabel.includes('ascending')
+                        ? 'ascending'
+                        : 'descending'
+                      : undefined
+                  }
                   className={`py-2 pr-3 font-medium whitespace-nowrap ${h.column.id === 'margin' ? 'text-right' : ''}`}
                 >
                   {flexRender(h.column.columnDef.header, h.getContext())}
@@ -163,7 +194,10 @@ export function FindingsTable({
                 data-verdict={row.original.verdict}
               >
                 {row.getVisibleCells().map((cell) => (
-                  <td key={cell.id} className={`py-1.5 pr-3 ${cell.column.id === 'margin' ? 'text-right' : ''} ${cell.column.id === 'reason' ? 'min-w-[18rem]' : ''}`}>
+                  <td
+                    key={cell.id}
+                    className={`py-1.5 pr-3 ${cell.column.id === 'margin' ? 'text-right' : ''} ${cell.column.id === 'reason' ? 'min-w-[18rem]' : ''}`}
+                  >
                     {flexRender(cell.column.columnDef.cell, cell.getContext())}
                   </td>
                 ))}

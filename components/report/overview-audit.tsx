@@ -39,10 +39,20 @@ export function OverviewAudit({
     >
       <span>
         {detail
-          ? `The schedule or the assumptions changed after audit run #${detail.run.id} (${status.changes.length} ${status.changes.length === 1 ? 'change' : 'changes'}${status.changes.length ? `: ${status.changes.slice(0, 3).map((c) => `${c.entity} ${c.label} ${c.change}`).join(', ')}${status.changes.length > 3 ? ', …' : ''}` : ''}). Its findings may no longer hold.`
+          ? `The schedule or the assumptions changed after audit run #${detail.run.id} (${status.changes.length} ${status.changes.length === 1 ? 'change' : 'changes'}${
+              status.changes.length
+                ? `: ${status.changes
+                    .slice(0, 3)
+                    .map((c) => `${c.entity} ${c.label} ${c.change}`)
+                    .join(', ')}${status.changes.length > 3 ? ', …' : ''}`
+                : ''
+            }). Its findings may no longer hold.`
           : 'This project has not been audited yet.'}
       </span>
-      <Link href={base} className="rounded-sm border border-accent bg-accent px-3 py-1.5 font-medium text-accent-ink hover:brightness-110">
+      <Link
+        href={base}
+        className="rounded-sm border border-accent bg-accent px-3 py-1.5 font-medium text-accent-ink hover:brightness-110"
+      >
         {mayRun ? 'Run the audit' : 'See the findings'}
       </Link>
     </div>
@@ -58,7 +68,8 @@ export function OverviewAudit({
     const worse =
       !cur ||
       VERDICT_SEVERITY[f.verdict] > VERDICT_SEVERITY[cur.verdict] ||
-      (VERDICT_SEVERITY[f.verdict] === VERDICT_SEVERITY[cur.verdict] && (f.margin ?? -Infinity) < (cur.margin ?? -Infinity));
+      (VERDICT_SEVERITY[f.verdict] === VERDICT_SEVERITY[cur.verdict] &&
+        (f.margin ?? -Infinity) < (cur.margin ?? -Infinity));
     if (worse) byChannel.set(f.channelId, f);
   }
   const worst = [...byChannel.values()]
@@ -69,7 +80,10 @@ export function OverviewAudit({
         (a.channelTag ?? '').localeCompare(b.channelTag ?? ''),
     )
     .slice(0, WORST_SHOWN);
-  const mechanisms = Object.entries(summary.exposuresByMechanism) as [keyof typeof MECHANISM_LABEL, number][];
+  const mechanisms = Object.entries(summary.exposuresByMechanism) as [
+    keyof typeof MECHANISM_LABEL,
+    number,
+  ][];
 
   return (
     <div className="space-y-4">
@@ -115,14 +129,19 @@ export function OverviewAudit({
             <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-1 text-sm">
               <dt className="text-muted">Run</dt>
               <dd>
-                #{detail.run.id}, {new Date(detail.run.createdAt).toLocaleString('en-GB', { timeZone: 'UTC' })} UTC
+                #{detail.run.id},{' '}
+                {new Date(detail.run.createdAt).toLocaleString('en-GB', { timeZone: 'UTC' })} UTC
               </dd>
               <dt className="text-muted">By</dt>
               <dd>{detail.run.createdBy?.name ?? '—'}</dd>
               <dt className="text-muted">Review</dt>
               <dd>{REVIEW_LABEL[detail.run.reviewState] ?? detail.run.reviewState}</dd>
               <dt className="text-muted">Inputs</dt>
-              <dd>{stale ? 'the schedule or assumptions changed after this run' : 'unchanged since this run'}</dd>
+              <dd>
+                {stale
+                  ? 'the schedule or assumptions changed after this run'
+                  : 'unchanged since this run'}
+              </dd>
             </dl>
           </Panel>
           <Panel>
@@ -130,7 +149,11 @@ export function OverviewAudit({
             <ul className="space-y-1 text-sm" aria-label="Channels by verdict">
               {VERDICT_ORDER.map((v: Verdict) => (
                 <li key={v} className="flex items-center justify-between gap-2">
-                  <Link href={`${base}?verdict=${v}`} className="flex items-center gap-2 hover:underline" aria-label={`${VERDICT_LABEL[v]}: ${summary.channelsByVerdict[v]} channels`}>
+                  <Link
+                    href={`${base}?verdict=${v}`}
+                    className="flex items-center gap-2 hover:underline"
+                    aria-label={`${VERDICT_LABEL[v]}: ${summary.channelsByVerdict[v]} channels`}
+                  >
                     <VerdictBadge verdict={v} />
                   </Link>
                   <span className="font-mono">{summary.channelsByVerdict[v]}</span>

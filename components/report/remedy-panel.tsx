@@ -32,8 +32,12 @@ export function RemedyPanel({
     staleTime: Infinity,
     queryFn: async (): Promise<RemedyOptionData[]> => {
       const res = await fetch(`/projects/${projectId}/audit/channels/${channelId}/remedies`);
-      const body = (await res.json().catch(() => null)) as { items?: RemedyOptionData[]; error?: string } | null;
-      if (!res.ok || !body?.items) throw new Error(body?.error ?? `The server answered ${res.status}.`);
+      const body = (await res.json().catch(() => null)) as {
+        items?: RemedyOptionData[];
+        error?: string;
+      } | null;
+      if (!res.ok || !body?.items)
+        throw new Error(body?.error ?? `The server answered ${res.status}.`);
       return body.items;
     },
   });
@@ -42,7 +46,8 @@ export function RemedyPanel({
     <p className="text-sm text-muted">Every case holds: no change is needed.</p>
   ) : remedies.isPending ? (
     <p className="text-sm text-muted" role="status" aria-live="polite">
-      Working out the smallest changes that would hold (each candidate is re-solved against every case)…
+      Working out the smallest changes that would hold (each candidate is re-solved against every
+      case)…
     </p>
   ) : remedies.isError ? (
     <p role="alert" className="text-sm text-danger">
@@ -50,5 +55,13 @@ export function RemedyPanel({
     </p>
   ) : null;
 
-  return <WhatIf guard={guard} cases={cases} conditions={conditions} remedies={remedies.data ?? []} status={status} />;
+  return (
+    <WhatIf
+      guard={guard}
+      cases={cases}
+      conditions={conditions}
+      remedies={remedies.data ?? []}
+      status={status}
+    />
+  );
 }

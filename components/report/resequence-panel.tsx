@@ -8,7 +8,10 @@ import type { ResequenceView } from '@/lib/data/resequence';
 import type { StripView, TerminalView } from '@/lib/data/channel-detail';
 
 /** The strip as the proposal would leave it: new positions, added barriers or spares. */
-export function proposedTerminals(terminals: TerminalView[], proposal: ResequenceView): TerminalView[] {
+export function proposedTerminals(
+  terminals: TerminalView[],
+  proposal: ResequenceView,
+): TerminalView[] {
   const byId = new Map(terminals.map((t) => [String(t.id), t]));
   const out: TerminalView[] = [];
   let synthetic = -1;
@@ -39,7 +42,12 @@ export function proposedTerminals(terminals: TerminalView[], proposal: Resequenc
   return out;
 }
 
-type Phase = { step: 'view' } | { step: 'confirm' } | { step: 'applying' } | { step: 'done'; count: number } | { step: 'error'; message: string };
+type Phase =
+  | { step: 'view' }
+  | { step: 'confirm' }
+  | { step: 'applying' }
+  | { step: 'done'; count: number }
+  | { step: 'error'; message: string };
 
 /**
  * The re-sequencing proposal, before and after, with the moves listed. Applying it is an
@@ -62,7 +70,9 @@ export function ResequencePanel({
   const router = useRouter();
   const [phase, setPhase] = useState<Phase>({ step: 'view' });
   const after = useMemo(() => proposedTerminals(terminals, proposal), [terminals, proposal]);
-  const slides = proposal.renumbered.filter((r) => !proposal.moves.some((m) => m.terminalId === r.terminalId));
+  const slides = proposal.renumbered.filter(
+    (r) => !proposal.moves.some((m) => m.terminalId === r.terminalId),
+  );
 
   const apply = async () => {
     setPhase({ step: 'applying' });
@@ -72,12 +82,18 @@ export function ResequencePanel({
         headers: { 'content-type': 'application/json' },
         body: JSON.stringify({ fingerprint: proposal.fingerprint, versions: proposal.versions }),
       });
-      const body = (await res.json().catch(() => null)) as { error?: string; items?: unknown[] } | null;
+      const body = (await res.json().catch(() => null)) as {
+        error?: string;
+        items?: unknown[];
+      } | null;
       if (!res.ok) {
         setPhase({ step: 'error', message: body?.error ?? `The server answered ${res.status}.` });
         return;
       }
-      setPhase({ step: 'done', count: Array.isArray(body?.items) ? body.items.length : proposal.renumbered.length });
+      setPhase({
+        step: 'done',
+        count: Array.isArray(body?.items) ? body.items.length : proposal.renumbered.length,
+      });
       router.refresh();
     } catch (err) {
       setPhase({ step: 'error', message: err instanceof Error ? err.message : String(err) });
@@ -85,38 +101,57 @@ export function ResequencePanel({
   };
 
   if (!proposal.changed) {
-    return <p className="text-sm">{proposal.note || 'The present order is already the best the proposal finds: nothing to move.'}</p>;
+    return (
+      <p className="text-sm">
+        {proposal.note ||
+          'The present order is already the best the proposal finds: nothing to move.'}
+      </p>
+    );
   }
 
   return (
     <div className="space-y-4">
       <p className="text-sm">
-        Exposures between terminals of this strip: <strong className="font-mono">{proposal.before.exposures}</strong> now,{' '}
-        <strong className="font-mono">{proposal.after.exposures}</strong> after. {proposal.moves.length} terminals lifted and landed
-        elsewhere, {proposal.renumbered.length} renumbered in all, {proposal.addedSeparators.length} separators added.
+        Exposures between terminals of this strip:{' '}
+        <strong className="font-mono">{proposal.before.exposures}</strong> now,{' '}
+        <strong className="font-mono">{proposal.after.exposures}</strong> after.{' '}
+        {proposal.moves.length} terminals lifted and landed elsewhere, {proposal.renumbered.length}{' '}
+        renumbered in all, {proposal.addedSeparators.length} separators added.
       </p>
       {proposal.note && <p className="text-sm text-muted">{proposal.note}</p>}
       <div className="grid gap-4">
         <figure className="min-w-0">
-          <figcaption className="mb-1 text-xs font-semibold text-muted uppercase">Before</figcaption>
+          <figcaption className="mb-1 text-xs font-semibold text-muted uppercase">
+            Before
+          </figcaption>
           <div className="overflow-x-auto">
             <StripDrawing strips={[strip]} terminals={terminals} />
           </div>
         </figure>
         <figure className="min-w-0">
-          <figcaption className="mb-1 text-xs font-semibold text-muted uppercase">After (proposed)</figcaption>
+          <figcaption className="mb-1 text-xs font-semibold text-muted uppercase">
+            After (proposed)
+          </figcaption>
           <div className="overflow-x-auto">
             <StripDrawing strips={[strip]} terminals={after} />
           </div>
         </figure>
       </div>
       <table className="text-sm">
-        <caption className="mb-1 text-left text-xs font-semibold text-muted uppercase">Moves</caption>
+        <caption className="mb-1 text-left text-xs font-semibold text-muted uppercase">
+          Moves
+        </caption>
         <thead className="text-left text-xs text-muted">
           <tr>
-            <th scope="col" className="pr-4 font-medium">Terminal</th>
-            <th scope="col" className="pr-4 font-medium">From</th>
-            <th scope="col" className="font-medium">To</th>
+            <th scope="col" className="pr-4 font-medium">
+              Terminal
+            </th>
+            <th scope="col" className="pr-4 font-medium">
+              From
+            </th>
+            <th scope="col" className="font-medium">
+              To
+            </th>
           </tr>
         </thead>
         <tbody>
@@ -157,10 +192,15 @@ export function ResequencePanel({
             <Button onClick={() => setPhase({ step: 'confirm' })}>Apply this order…</Button>
           )}
           {phase.step === 'confirm' && (
-            <div role="alertdialog" aria-labelledby="reseq-confirm" className="space-y-2 rounded-sm border border-danger bg-danger-soft p-3">
+            <div
+              role="alertdialog"
+              aria-labelledby="reseq-confirm"
+              className="space-y-2 rounded-sm border border-danger bg-danger-soft p-3"
+            >
               <p id="reseq-confirm" className="text-sm">
-                This renumbers {proposal.renumbered.length} terminals of strip {strip.tag} and adds {proposal.addedSeparators.length}{' '}
-                separators in the schedule. The wiring on site must follow the new order, and the audit must be run again.
+                This renumbers {proposal.renumbered.length} terminals of strip {strip.tag} and adds{' '}
+                {proposal.addedSeparators.length} separators in the schedule. The wiring on site
+                must follow the new order, and the audit must be run again.
               </p>
               <div className="flex gap-2">
                 <Button variant="danger" onClick={apply} autoFocus>
@@ -185,7 +225,9 @@ export function ResequencePanel({
           )}
         </div>
       ) : (
-        <p className="text-sm text-muted">Only a controls engineer may apply a re-sequencing to the schedule.</p>
+        <p className="text-sm text-muted">
+          Only a controls engineer may apply a re-sequencing to the schedule.
+        </p>
       )}
     </div>
   );

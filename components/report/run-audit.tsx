@@ -3,7 +3,12 @@
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
-import { overallFraction, PHASE_LABEL, takeLines, type RunDeltaCounts } from '@/lib/report/progress';
+import {
+  overallFraction,
+  PHASE_LABEL,
+  takeLines,
+  type RunDeltaCounts,
+} from '@/lib/report/progress';
 
 type State =
   | { status: 'idle' }
@@ -19,7 +24,11 @@ export function RunAudit({ projectId, stale }: { projectId: number; stale: boole
   const run = async () => {
     setState({ status: 'running', phase: 'loading', done: 0, total: 1 });
     try {
-      const res = await fetch(`/api/projects/${projectId}/audits`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{}' });
+      const res = await fetch(`/api/projects/${projectId}/audits`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: '{}',
+      });
       if (!res.ok || !res.body) {
         const body = (await res.json().catch(() => null)) as { error?: string } | null;
         setState({ status: 'error', error: body?.error ?? `The server answered ${res.status}.` });
@@ -35,7 +44,8 @@ export function RunAudit({ projectId, stale }: { projectId: number; stale: boole
         const { lines, rest } = takeLines(done ? `${buffer}\n` : buffer);
         buffer = rest;
         for (const line of lines) {
-          if (line.type === 'progress') setState({ status: 'running', phase: line.phase, done: line.done, total: line.total });
+          if (line.type === 'progress')
+            setState({ status: 'running', phase: line.phase, done: line.done, total: line.total });
           else if (line.type === 'done') {
             finished = true;
             setState({ status: 'done', runId: line.runId, delta: line.delta });
@@ -47,14 +57,23 @@ export function RunAudit({ projectId, stale }: { projectId: number; stale: boole
         }
         if (done) break;
       }
-      if (!finished) setState({ status: 'error', error: 'The connection closed before the audit reported its end; reload to see whether it was stored.' });
+      if (!finished)
+        setState({
+          status: 'error',
+          error:
+            'The connection closed before the audit reported its end; reload to see whether it was stored.',
+        });
     } catch (err) {
       setState({ status: 'error', error: err instanceof Error ? err.message : String(err) });
     }
   };
 
   const running = state.status === 'running';
-  const fraction = running ? overallFraction(state.phase, state.done, state.total) : state.status === 'done' ? 1 : 0;
+  const fraction = running
+    ? overallFraction(state.phase, state.done, state.total)
+    : state.status === 'done'
+      ? 1
+      : 0;
 
   return (
     <div className="space-y-2">
@@ -63,7 +82,9 @@ export function RunAudit({ projectId, stale }: { projectId: number; stale: boole
           {running ? 'Running…' : 'Run audit'}
         </Button>
         {stale && !running && state.status !== 'done' && (
-          <span className="text-sm text-muted">The schedule or assumptions changed since the last run.</span>
+          <span className="text-sm text-muted">
+            The schedule or assumptions changed since the last run.
+          </span>
         )}
       </div>
       {(running || state.status === 'done') && (
@@ -74,10 +95,17 @@ export function RunAudit({ projectId, stale }: { projectId: number; stale: boole
             aria-valuemin={0}
             aria-valuemax={100}
             aria-valuenow={Math.round(fraction * 100)}
-            aria-valuetext={running ? `${PHASE_LABEL[state.phase] ?? state.phase}, ${Math.round(fraction * 100)} %` : 'Done'}
+            aria-valuetext={
+              running
+                ? `${PHASE_LABEL[state.phase] ?? state.phase}, ${Math.round(fraction * 100)} %`
+                : 'Done'
+            }
             className="h-3 overflow-hidden rounded-sm border border-line bg-paper"
           >
-            <div className="h-full bg-accent transition-[width]" style={{ width: `${(fraction * 100).toFixed(1)}%` }} />
+            <div
+              className="h-full bg-accent transition-[width]"
+              style={{ width: `${(fraction * 100).toFixed(1)}%` }}
+            />
           </div>
           <p className="text-sm" data-testid="run-phase">
             {running ? (

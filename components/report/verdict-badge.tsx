@@ -25,11 +25,20 @@ const BORDER: Record<Verdict, string> = {
  */
 export function VerdictShape({ verdict, className }: { verdict: Verdict; className?: string }) {
   return (
-    <svg aria-hidden viewBox="0 0 16 16" className={cn('h-3.5 w-3.5 shrink-0', TEXT[verdict], className)}>
+    <svg
+      aria-hidden
+      viewBox="0 0 16 16"
+      className={cn('h-3.5 w-3.5 shrink-0', TEXT[verdict], className)}
+    >
       {verdict === 'holds' && <circle cx={8} cy={8} r={6} fill="currentColor" />}
       {verdict === 'marginal' && (
         <>
-          <path d="M8 1.5 14.5 8 8 14.5 1.5 8Z" fill="none" stroke="currentColor" strokeWidth={1.6} />
+          <path
+            d="M8 1.5 14.5 8 8 14.5 1.5 8Z"
+            fill="none"
+            stroke="currentColor"
+            strokeWidth={1.6}
+          />
           <path d="M8 1.5 14.5 8H1.5Z" fill="currentColor" />
         </>
       )}
@@ -45,7 +54,17 @@ export function VerdictShape({ verdict, className }: { verdict: Verdict; classNa
           <path d="M8 6v4.2M8 11.6v1.2" stroke="currentColor" strokeWidth={1.8} />
         </>
       )}
-      {verdict === 'incomplete' && <circle cx={8} cy={8} r={5.5} fill="none" stroke="currentColor" strokeWidth={1.8} strokeDasharray="3 2.2" />}
+      {verdict === 'incomplete' && (
+        <circle
+          cx={8}
+          cy={8}
+          r={5.5}
+          fill="none"
+          stroke="currentColor"
+          strokeWidth={1.8}
+          strokeDasharray="3 2.2"
+        />
+      )}
     </svg>
   );
 }

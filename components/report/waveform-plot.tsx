@@ -61,10 +61,11 @@ export function WaveformPlot({
     const xAxis = niceAxis(tMin, tMax, 6);
     let lo = 0;
     let hi = 0;
-    for (const tr of traces) for (const v of tr.values) {
-      if (v < lo) lo = v;
-      if (v > hi) hi = v;
-    }
+    for (const tr of traces)
+      for (const v of tr.values) {
+        if (v < lo) lo = v;
+        if (v > hi) hi = v;
+      }
     const yAxis = niceAxis(lo, hi, 5);
     // Rounded to 0.01 unit: server and browser then print identical attributes (hydration).
     const xs = linearScale(xAxis.min, xAxis.max, M.left, W - M.right);
@@ -73,7 +74,9 @@ export function WaveformPlot({
     const y = (v: number) => Math.round(ys(v) * 100) / 100;
     const paths = traces.map((tr) => {
       const d = decimate(t, tr.values, MAX_POINTS);
-      return d.t.map((tt, k) => `${k === 0 ? 'M' : 'L'}${x(tt).toFixed(1)},${y(d.v[k]!).toFixed(1)}`).join('');
+      return d.t
+        .map((tt, k) => `${k === 0 ? 'M' : 'L'}${x(tt).toFixed(1)},${y(d.v[k]!).toFixed(1)}`)
+        .join('');
     });
     return { xAxis, yAxis, x, y, paths };
   }, [t, traces]);
@@ -98,7 +101,9 @@ export function WaveformPlot({
 
   const tableRows = useMemo(() => {
     const n = Math.min(TABLE_ROWS, t.length);
-    return Array.from({ length: n }, (_, k) => Math.round((k * (t.length - 1)) / Math.max(1, n - 1)));
+    return Array.from({ length: n }, (_, k) =>
+      Math.round((k * (t.length - 1)) / Math.max(1, n - 1)),
+    );
   }, [t]);
 
   const readout =
@@ -115,7 +120,15 @@ export function WaveformPlot({
           return (
             <li key={tr.name} className="flex items-center gap-1.5">
               <svg aria-hidden viewBox="0 0 30 10" className="h-2.5 w-8">
-                <line x1={1} x2={29} y1={5} y2={5} className={s.stroke} strokeWidth={2} strokeDasharray={s.dash || undefined} />
+                <line
+                  x1={1}
+                  x2={29}
+                  y1={5}
+                  y2={5}
+                  className={s.stroke}
+                  strokeWidth={2}
+                  strokeDasharray={s.dash || undefined}
+                />
               </svg>
               <span className="font-mono text-muted">{MARKS[k]}</span>
               {traceLabel(tr.name)}
@@ -136,38 +149,108 @@ export function WaveformPlot({
         {/* grid and ticks */}
         {yAxis.ticks.map((v) => (
           <g key={`y${v}`}>
-            <line x1={M.left} x2={W - M.right} y1={y(v)} y2={y(v)} className={v === 0 ? 'stroke-muted' : 'stroke-line'} strokeWidth={v === 0 ? 1 : 0.6} />
-            <text x={M.left - 6} y={y(v) + 4} textAnchor="end" className="fill-muted font-mono text-[11px]">
+            <line
+              x1={M.left}
+              x2={W - M.right}
+              y1={y(v)}
+              y2={y(v)}
+              className={v === 0 ? 'stroke-muted' : 'stroke-line'}
+              strokeWidth={v === 0 ? 1 : 0.6}
+            />
+            <text
+              x={M.left - 6}
+              y={y(v) + 4}
+              textAnchor="end"
+              className="fill-muted font-mono text-[11px]"
+            >
               {tickLabel(v, yAxis)}
             </text>
           </g>
         ))}
         {xAxis.ticks.map((v) => (
           <g key={`x${v}`}>
-            <line x1={x(v)} x2={x(v)} y1={M.top} y2={H - M.bottom} className="stroke-line" strokeWidth={0.6} />
-            <text x={x(v)} y={H - M.bottom + 15} textAnchor="middle" className="fill-muted font-mono text-[11px]">
+            <line
+              x1={x(v)}
+              x2={x(v)}
+              y1={M.top}
+              y2={H - M.bottom}
+              className="stroke-line"
+              strokeWidth={0.6}
+            />
+            <text
+              x={x(v)}
+              y={H - M.bottom + 15}
+              textAnchor="middle"
+              className="fill-muted font-mono text-[11px]"
+            >
               {tickLabel(v, xAxis)}
             </text>
           </g>
         ))}
-        <text x={(M.left + W - M.right) / 2} y={H - 6} textAnchor="middle" className="fill-ink text-[12px]">
+        <text
+          x={(M.left + W - M.right) / 2}
+          y={H - 6}
+          textAnchor="middle"
+          className="fill-ink text-[12px]"
+        >
           time ({xAxis.prefix}s)
         </text>
-        <text x={14} y={(M.top + H - M.bottom) / 2} textAnchor="middle" transform={`rotate(-90 14 ${(M.top + H - M.bottom) / 2})`} className="fill-ink text-[12px]">
-          {quantity.toLowerCase()} ({yAxis.prefix}{unit})
+        <text
+          x={14}
+          y={(M.top + H - M.bottom) / 2}
+          textAnchor="middle"
+          transform={`rotate(-90 14 ${(M.top + H - M.bottom) / 2})`}
+          className="fill-ink text-[12px]"
+        >
+          {quantity.toLowerCase()} ({yAxis.prefix}
+          {unit})
         </text>
-        <rect x={M.left} y={M.top} width={W - M.left - M.right} height={H - M.top - M.bottom} className="fill-none stroke-muted" strokeWidth={0.8} />
+        <rect
+          x={M.left}
+          y={M.top}
+          width={W - M.left - M.right}
+          height={H - M.top - M.bottom}
+          className="fill-none stroke-muted"
+          strokeWidth={0.8}
+        />
         {paths.map((d, k) => {
           const s = STYLES[k % STYLES.length]!;
-          return <path key={traces[k]!.name} d={d} className={`fill-none ${s.stroke}`} strokeWidth={1.8} strokeDasharray={s.dash || undefined} strokeLinejoin="round" />;
+          return (
+            <path
+              key={traces[k]!.name}
+              d={d}
+              className={`fill-none ${s.stroke}`}
+              strokeWidth={1.8}
+              strokeDasharray={s.dash || undefined}
+              strokeLinejoin="round"
+            />
+          );
         })}
         {cursor !== null && (
           <g>
-            <line x1={x(t[cursor]!)} x2={x(t[cursor]!)} y1={M.top} y2={H - M.bottom} className="stroke-ink" strokeWidth={1} strokeDasharray="3 3" />
+            <line
+              x1={x(t[cursor]!)}
+              x2={x(t[cursor]!)}
+              y1={M.top}
+              y2={H - M.bottom}
+              className="stroke-ink"
+              strokeWidth={1}
+              strokeDasharray="3 3"
+            />
             {traces.map((tr, k) => (
               <g key={tr.name}>
-                <circle cx={x(t[cursor]!)} cy={y(tr.values[cursor]!)} r={3.5} className={`fill-panel ${STYLES[k % STYLES.length]!.stroke}`} strokeWidth={1.5} />
-                <text x={x(t[cursor]!) + 5} y={y(tr.values[cursor]!) - 4} className="fill-ink font-mono text-[10px]">
+                <circle
+                  cx={x(t[cursor]!)}
+                  cy={y(tr.values[cursor]!)}
+                  r={3.5}
+                  className={`fill-panel ${STYLES[k % STYLES.length]!.stroke}`}
+                  strokeWidth={1.5}
+                />
+                <text
+                  x={x(t[cursor]!) + 5}
+                  y={y(tr.values[cursor]!) - 4}
+                  className="fill-ink font-mono text-[10px]"
+                >
                   {MARKS[k]}
                 </text>
               </g>
@@ -179,13 +262,17 @@ export function WaveformPlot({
         {readout}
       </p>
       <details className="text-xs">
-        <summary className="cursor-pointer text-muted">Data table ({tableRows.length} of {t.length} samples)</summary>
+        <summary className="cursor-pointer text-muted">
+          Data table ({tableRows.length} of {t.length} samples)
+        </summary>
         <div className="mt-2 max-h-64 overflow-auto">
           <table className="w-full font-mono">
             <caption className="sr-only">{title}: sampled values</caption>
             <thead className="text-left text-muted">
               <tr>
-                <th scope="col" className="pr-3 font-medium">t</th>
+                <th scope="col" className="pr-3 font-medium">
+                  t
+                </th>
                 {traces.map((tr) => (
                   <th key={tr.name} scope="col" className="pr-3 font-medium">
                     {traceLabel(tr.name)}

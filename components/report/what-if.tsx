@@ -70,7 +70,10 @@ export function withEdits(guard: Guard, edits: Edits): Guard {
 }
 
 function worst(verdicts: Verdict[]): Verdict {
-  return verdicts.reduce<Verdict>((w, v) => (VERDICT_SEVERITY[v] > VERDICT_SEVERITY[w] ? v : w), 'holds');
+  return verdicts.reduce<Verdict>(
+    (w, v) => (VERDICT_SEVERITY[v] > VERDICT_SEVERITY[w] ? v : w),
+    'holds',
+  );
 }
 
 /**
@@ -109,7 +112,11 @@ export function WhatIf({
         const r = solveStress(g, c.stress, conditions[c.appliedTo]);
         return { key: c.key, verdict: r.verdict, reason: r.reason };
       } catch (err) {
-        return { key: c.key, verdict: 'incomplete' as Verdict, reason: err instanceof Error ? err.message : String(err) };
+        return {
+          key: c.key,
+          verdict: 'incomplete' as Verdict,
+          reason: err instanceof Error ? err.message : String(err),
+        };
       }
     });
   }, [trial, guard, edits, cases, conditions]);
@@ -120,7 +127,8 @@ export function WhatIf({
   const apply = (changes: { elementId: string; field: string; to: number }[]) => {
     setEdits((e) => {
       const next: Edits = { ...e };
-      for (const c of changes) next[c.elementId] = { ...(next[c.elementId] ?? {}), [c.field]: c.to };
+      for (const c of changes)
+        next[c.elementId] = { ...(next[c.elementId] ?? {}), [c.field]: c.to };
       return next;
     });
     setError(null);
@@ -145,12 +153,20 @@ export function WhatIf({
       ) : remedies.length > 0 ? (
         <ul className="space-y-2">
           {remedies.map((r) => (
-            <li key={r.id} className="flex flex-wrap items-center justify-between gap-3 rounded-sm border border-line p-3">
+            <li
+              key={r.id}
+              className="flex flex-wrap items-center justify-between gap-3 rounded-sm border border-line p-3"
+            >
               <div className="min-w-0 flex-1">
                 <p className="font-medium">{r.title}</p>
                 <p className="text-sm text-muted">{r.detail}</p>
               </div>
-              <Button variant="secondary" size="sm" onClick={() => apply(r.changes)} aria-label={`What if: ${r.title}`}>
+              <Button
+                variant="secondary"
+                size="sm"
+                onClick={() => apply(r.changes)}
+                aria-label={`What if: ${r.title}`}
+              >
                 What if?
               </Button>
             </li>
@@ -171,7 +187,7 @@ export function WhatIf({
               onChange={(e) => {
                 setElementId(e.target.value);
                 const el = elements.find((x) => x.id === e.target.value);
-                setField(el ? numericFields(el)[0] ?? '' : '');
+                setField(el ? (numericFields(el)[0] ?? '') : '');
               }}
             >
               {elements.map((e) => (
@@ -183,10 +199,19 @@ export function WhatIf({
           </label>
           <label className="text-sm">
             <span className="block text-muted">Figure</span>
-            <select className="h-10 rounded-sm border border-line bg-panel px-2 text-sm" value={field} onChange={(e) => setField(e.target.value)}>
+            <select
+              className="h-10 rounded-sm border border-line bg-panel px-2 text-sm"
+              value={field}
+              onChange={(e) => setField(e.target.value)}
+            >
               {fields.map((f) => (
                 <option key={f} value={f}>
-                  {f} (now {formatEng((element as unknown as Record<string, number>)[f]!, unitOfField(f) ?? '')})
+                  {f} (now{' '}
+                  {formatEng(
+                    (element as unknown as Record<string, number>)[f]!,
+                    unitOfField(f) ?? '',
+                  )}
+                  )
                 </option>
               ))}
             </select>
@@ -196,7 +221,11 @@ export function WhatIf({
             <Input
               className="w-36 font-mono"
               value={text}
-              placeholder={unitOfField(field) ? `e.g. 22k${unitOfField(field) === 'Ω' ? '' : unitOfField(field)}` : ''}
+              placeholder={
+                unitOfField(field)
+                  ? `e.g. 22k${unitOfField(field) === 'Ω' ? '' : unitOfField(field)}`
+                  : ''
+              }
               onChange={(e) => setText(e.target.value)}
               onKeyDown={(e) => {
                 if (e.key === 'Enter') tryManual();
@@ -217,12 +246,18 @@ export function WhatIf({
       </fieldset>
 
       {trial && outcome && after && (
-        <div className="space-y-3 rounded-sm border border-accent bg-accent-soft p-3" aria-live="polite">
+        <div
+          className="space-y-3 rounded-sm border border-accent bg-accent-soft p-3"
+          aria-live="polite"
+        >
           <div className="flex flex-wrap items-center gap-3">
             <span className="text-sm font-medium">Trial, not saved:</span>
             {Object.entries(edits).map(([id, ch]) => (
               <span key={id} className="font-mono text-sm">
-                {id}: {Object.entries(ch).map(([f, v]) => `${f} ${formatEng(v, unitOfField(f) ?? '')}`).join(', ')}
+                {id}:{' '}
+                {Object.entries(ch)
+                  .map(([f, v]) => `${f} ${formatEng(v, unitOfField(f) ?? '')}`)
+                  .join(', ')}
               </span>
             ))}
             <Button variant="ghost" size="sm" onClick={() => setEdits({})}>
@@ -237,26 +272,38 @@ export function WhatIf({
             <caption className="sr-only">Each stress case re-solved with the trial figures</caption>
             <thead className="text-left text-xs text-muted">
               <tr>
-                <th scope="col" className="py-1 pr-2 font-medium">Case</th>
-                <th scope="col" className="py-1 pr-2 font-medium">Audited</th>
-                <th scope="col" className="py-1 pr-2 font-medium">With the trial</th>
-                <th scope="col" className="py-1 font-medium">Why</th>
+                <th scope="col" className="py-1 pr-2 font-medium">
+                  Case
+                </th>
+                <th scope="col" className="py-1 pr-2 font-medium">
+                  Audited
+                </th>
+                <th scope="col" className="py-1 pr-2 font-medium">
+                  With the trial
+                </th>
+                <th scope="col" className="py-1 font-medium">
+                  Why
+                </th>
               </tr>
             </thead>
             <tbody>
               {cases.map((c, k) => (
                 <tr key={c.key} className="border-t border-line align-top">
                   <td className="py-1 pr-2">{c.label}</td>
-                  <td className="py-1 pr-2"><VerdictBadge verdict={c.verdict} /></td>
-                  <td className="py-1 pr-2"><VerdictBadge verdict={outcome[k]!.verdict} /></td>
+                  <td className="py-1 pr-2">
+                    <VerdictBadge verdict={c.verdict} />
+                  </td>
+                  <td className="py-1 pr-2">
+                    <VerdictBadge verdict={outcome[k]!.verdict} />
+                  </td>
                   <td className="py-1 text-xs">{outcome[k]!.reason}</td>
                 </tr>
               ))}
             </tbody>
           </table>
           <p className="text-xs text-muted">
-            Nothing has been saved. To adopt a change, an engineer edits the channel&apos;s guard in the schedule and
-            runs the audit again.
+            Nothing has been saved. To adopt a change, an engineer edits the channel&apos;s guard in
+            the schedule and runs the audit again.
           </p>
         </div>
       )}

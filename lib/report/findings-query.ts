@@ -5,7 +5,14 @@
 import type { Verdict } from '../stress/types';
 
 export const CASE_KINDS = ['ac', 'dc', 'surge', 'esd'] as const;
-export const MECHANISM_FILTERS = ['neighbour', 'stacked', 'same-cable', 'look-alike', 'bridge', 'transient'] as const;
+export const MECHANISM_FILTERS = [
+  'neighbour',
+  'stacked',
+  'same-cable',
+  'look-alike',
+  'bridge',
+  'transient',
+] as const;
 export const KIND_FILTERS = ['stress', 'segregation', 'colour'] as const;
 const VERDICTS: readonly Verdict[] = ['unprotected', 'fails', 'incomplete', 'marginal', 'holds'];
 const SORTS = ['margin', 'utilisation', 'channel', 'verdict'] as const;
@@ -92,5 +99,8 @@ export function toFindingFilters(q: FindingsQuery) {
  * the mechanism 'transient', which is not a stored column value.
  */
 export function matchesMechanism(q: FindingsQuery, mechanism: string | null): boolean {
-  return q.mechanism.length === 0 || (mechanism !== null && (q.mechanism as string[]).includes(mechanism));
+  return (
+    q.mechanism.length === 0 ||
+    (mechanism !== null && (q.mechanism as string[]).includes(mechanism))
+  );
 }

@@ -71,7 +71,9 @@ export function checkCells(c: RatingCheck) {
     value: formatEng(c.value, unit),
     rating: c.rating === null ? 'not given' : formatEng(c.rating, unit),
     atAmbient:
-      c.temperatureRating === undefined || c.temperatureRating === null || c.temperatureRating === c.rating
+      c.temperatureRating === undefined ||
+      c.temperatureRating === null ||
+      c.temperatureRating === c.rating
         ? null
         : formatEng(c.temperatureRating, unit),
     derated: c.deratedRating === null ? '—' : formatEng(c.deratedRating, unit),
@@ -90,7 +92,10 @@ export function caseInputs(c: StressCase): { label: string; text: string }[] {
       ];
     case 'ac':
       return [
-        { label: 'Applied voltage', text: `${formatEng(c.rmsVoltage, 'V')} rms (${formatEng(c.rmsVoltage * Math.SQRT2, 'V')} peak)` },
+        {
+          label: 'Applied voltage',
+          text: `${formatEng(c.rmsVoltage, 'V')} rms (${formatEng(c.rmsVoltage * Math.SQRT2, 'V')} peak)`,
+        },
         { label: 'Frequency', text: formatEng(c.frequency, 'Hz') },
         { label: 'Source resistance', text: formatEng(c.sourceResistance, 'Ω') },
       ];

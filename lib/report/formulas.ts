@@ -7,7 +7,14 @@
  */
 import { formatEng } from '../units';
 import { seriesResistanceOf } from '../stress/network';
-import type { ElementStress, Guard, RatingCheck, StressCase, StressResult, Waveform } from '../stress/types';
+import type {
+  ElementStress,
+  Guard,
+  RatingCheck,
+  StressCase,
+  StressResult,
+  Waveform,
+} from '../stress/types';
 import { formatMargin, QUANTITY_UNIT, shown, type ShownNumber } from './format';
 
 export interface FormulaLine {
@@ -25,15 +32,31 @@ export interface FormulaLine {
 }
 
 /** Open-circuit peak of the case's source (magnitude) and its internal resistance. */
-export function sourceOf(c: StressCase): { peak: number; resistance: number; resistanceText: string } {
+export function sourceOf(c: StressCase): {
+  peak: number;
+  resistance: number;
+  resistanceText: string;
+} {
   switch (c.kind) {
     case 'dc':
-      return { peak: Math.abs(c.voltage), resistance: c.sourceResistance, resistanceText: 'R_source' };
+      return {
+        peak: Math.abs(c.voltage),
+        resistance: c.sourceResistance,
+        resistanceText: 'R_source',
+      };
     case 'ac':
-      return { peak: c.rmsVoltage * Math.SQRT2, resistance: c.sourceResistance, resistanceText: 'R_source' };
+      return {
+        peak: c.rmsVoltage * Math.SQRT2,
+        resistance: c.sourceResistance,
+        resistanceText: 'R_source',
+      };
     case 'surge':
       // IEC 61000-4-5: 2 Ω generator plus the coupling resistance.
-      return { peak: Math.abs(c.peakVoltage), resistance: 2 + c.couplingResistance, resistanceText: 'R_gen' };
+      return {
+        peak: Math.abs(c.peakVoltage),
+        resistance: 2 + c.couplingResistance,
+        resistanceText: 'R_gen',
+      };
     case 'esd':
       // IEC 61000-4-2: 330 Ω discharge resistor.
       return { peak: Math.abs(c.voltage), resistance: 330, resistanceText: 'R_esd' };
@@ -58,7 +81,10 @@ function signedText(v: ShownNumber): string {
  * node voltages then. Only for a single-stage guard, where the protected input sits on the
  * clamping node, so the waveform's "input" trace is that node.
  */
-function atPeakCurrent(guard: Guard, waveform: Waveform | undefined): { vs: number; vn: number } | null {
+function atPeakCurrent(
+  guard: Guard,
+  waveform: Waveform | undefined,
+): { vs: number; vn: number } | null {
   if (!waveform || guard.stages.length !== 1) return null;
   const trace = (name: string) => waveform.traces.find((t) => t.name === name)?.values;
   const vs = trace('source');
@@ -80,7 +106,9 @@ function peakCurrentLine(guard: Guard, result: StressResult, waveform?: Waveform
   for (const stage of guard.stages) {
     sumR += seriesResistanceOf(stage.series);
     names.push(stage.series.id);
-    const clamps = stage.shunts.map((s) => byId.get(s.id)).filter((e): e is ElementStress => e !== undefined);
+    const clamps = stage.shunts
+      .map((s) => byId.get(s.id))
+      .filter((e): e is ElementStress => e !== undefined);
     if (clamps.length > 0) {
       const top = clamps.reduce((a, b) => (b.peakVoltage > a.peakVoltage ? b : a));
       node = { name: `V(${top.elementId})`, volts: top.peakVoltage };
@@ -133,7 +161,10 @@ function resistorPowerLines(guard: Guard, result: StressResult): FormulaLine[] {
       substituted: `(${irms.text})² × ${r.text}`,
       result: p,
       terms: [irms, r, p],
-      note: gap > HAND_TOLERANCE ? `The hand form gives ${formatEng(hand, 'W')}; the engine's figure is the integral over the cycle.` : undefined,
+      note:
+        gap > HAND_TOLERANCE
+          ? `The hand form gives ${formatEng(hand, 'W')}; the engine's figure is the integral over the cycle.`
+          : undefined,
     });
   }
   return lines;
@@ -149,13 +180,19 @@ export function checkLines(elementId: string, c: RatingCheck, index: number): Fo
   const kd = atT !== 0 ? c.deratedRating / atT : 1;
   const derated = shown(c.deratedRating, unit);
   const value = shown(c.value, unit);
-  const factors = kT !== 1 ? `${rating.text} × ${kT.toPrecision(3)} × ${kd.toPrecision(3)}` : `${rating.text} × ${kd.toPrecision(3)}`;
+  const factors =
+    kT !== 1
+      ? `${rating.text} × ${kT.toPrecision(3)} × ${kd.toPrecision(3)}`
+      : `${rating.text} × ${kd.toPrecision(3)}`;
   const marginText = formatMargin(c.margin);
   return [
     {
       id: `derated-${elementId}-${index}`,
       title: `${elementId}: derated ${c.quantity === 'i2t' ? 'I²t' : c.quantity}`,
-      symbolic: kT !== 1 ? 'derated = rating × k_T (ambient) × k_d (derating)' : 'derated = rating × k_d (derating)',
+      symbolic:
+        kT !== 1
+          ? 'derated = rating × k_T (ambient) × k_d (derating)'
+          : 'derated = rating × k_d (derating)',
       substituted: factors,
       result: derated,
       terms: [rating, derated],
@@ -172,7 +209,11 @@ export function checkLines(elementId: string, c: RatingCheck, index: number): Fo
 }
 
 /** Every line for one solved case (the waveform, where given, places the peak in time): the source current, resistor powers, then each element's derating and margin. */
-export function formulasFor(guard: Guard, result: StressResult, waveform?: Waveform): FormulaLine[] {
+export function formulasFor(
+  guard: Guard,
+  result: StressResult,
+  waveform?: Waveform,
+): FormulaLine[] {
   if (guard.stages.length === 0) return [];
   const lines = [peakCurrentLine(guard, result, waveform), ...resistorPowerLines(guard, result)];
   for (const e of result.elements) {

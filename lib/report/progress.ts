@@ -63,7 +63,10 @@ export function takeLines(buffer: string): { lines: RunLine[]; rest: string } {
     try {
       lines.push(JSON.parse(text) as RunLine);
     } catch {
-      lines.push({ type: 'error', error: `The server sent a line that is not JSON: ${text.slice(0, 80)}` });
+      lines.push({
+        type: 'error',
+        error: `The server sent a line that is not JSON: ${text.slice(0, 80)}`,
+      });
     }
   }
   return { lines, rest };

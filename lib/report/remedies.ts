@@ -9,7 +9,14 @@
 import { formatEng } from '../units';
 import { suggestRemedies, type Remedy, type RemedyChange } from '../remedies';
 import { solveStress } from '../stress/solve';
-import { VERDICT_SEVERITY, type Guard, type HazardTerminal, type StressCase, type StressConditions, type Verdict } from '../stress/types';
+import {
+  VERDICT_SEVERITY,
+  type Guard,
+  type HazardTerminal,
+  type StressCase,
+  type StressConditions,
+  type Verdict,
+} from '../stress/types';
 import { VERDICT_LABEL } from './format';
 
 export interface RemedyOptionData {
@@ -35,13 +42,15 @@ function verdictWith(
   const trial = structuredClone(guard);
   for (const stage of trial.stages) {
     for (const el of [stage.series, ...stage.shunts]) {
-      for (const c of changes) if (c.elementId === el.id) (el as unknown as Record<string, number>)[c.field] = c.to;
+      for (const c of changes)
+        if (c.elementId === el.id) (el as unknown as Record<string, number>)[c.field] = c.to;
     }
   }
   let worst: { verdict: Verdict; reason: string } = { verdict: 'holds', reason: '' };
   for (const c of cases) {
     const r = solveStress(trial, c.stress, conditions[c.appliedTo]);
-    if (VERDICT_SEVERITY[r.verdict] > VERDICT_SEVERITY[worst.verdict]) worst = { verdict: r.verdict, reason: r.reason };
+    if (VERDICT_SEVERITY[r.verdict] > VERDICT_SEVERITY[worst.verdict])
+      worst = { verdict: r.verdict, reason: r.reason };
   }
   return worst;
 }
@@ -56,14 +65,19 @@ export function remedyOptions(
   conditions: Record<HazardTerminal, StressConditions>,
 ): RemedyOptionData[] {
   const bySide = new Map<HazardTerminal, StressCase[]>();
-  for (const c of cases) (bySide.get(c.appliedTo) ?? bySide.set(c.appliedTo, []).get(c.appliedTo)!).push(c.stress);
+  for (const c of cases)
+    (bySide.get(c.appliedTo) ?? bySide.set(c.appliedTo, []).get(c.appliedTo)!).push(c.stress);
   const merged = new Map<string, Merged>();
   for (const [side, list] of bySide) {
     for (const r of suggestRemedies(guard, list, conditions[side])) {
       const key = `${r.kind}:${[...new Set(r.changes.map((c) => c.elementId))].sort().join('+')}`;
       const entry = merged.get(key);
       if (!entry) {
-        merged.set(key, { first: r, count: 1, changes: new Map(r.changes.map((c) => [`${c.elementId}.${c.field}`, c])) });
+        merged.set(key, {
+          first: r,
+          count: 1,
+          changes: new Map(r.changes.map((c) => [`${c.elementId}.${c.field}`, c])),
+        });
         continue;
       }
       entry.count++;
@@ -84,7 +98,10 @@ export function remedyOptions(
     return {
       id: key,
       // The sizing's own words when one side gave it; our summary of the merged figures otherwise.
-      title: m.count === 1 ? m.first.description : `${changes.map(changeText).join('; ')} (larger of the signal- and return-side sizings)`,
+      title:
+        m.count === 1
+          ? m.first.description
+          : `${changes.map(changeText).join('; ')} (larger of the signal- and return-side sizings)`,
       detail: `With this change, over every case of the channel: ${VERDICT_LABEL[after.verdict].toLowerCase()}${after.verdict === 'holds' ? '' : ` (${after.reason})`}.`,
       changes: changes.map((c) => ({ elementId: c.elementId, field: c.field, to: c.to })),
     };

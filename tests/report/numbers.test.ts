@@ -10,7 +10,13 @@ import { CaseCalculations } from '@/components/report/case-calculations';
 import { checkCells, formatMargin, QUANTITY_UNIT } from '@/lib/report/format';
 import { formulasFor, sourceOf } from '@/lib/report/formulas';
 import { solveStress } from '@/lib/stress/solve';
-import type { Guard, StressCase, StressConditions, StressResult, Waveform } from '@/lib/stress/types';
+import type {
+  Guard,
+  StressCase,
+  StressConditions,
+  StressResult,
+  Waveform,
+} from '@/lib/stress/types';
 import { formatEng } from '@/lib/units';
 
 // A 10 kΩ / 0.25 W series resistor and a bidirectional 12 V zener in front of a 24 V input:
@@ -18,13 +24,42 @@ import { formatEng } from '@/lib/units';
 const guard: Guard = {
   stages: [
     {
-      series: { kind: 'resistor', id: 'R1', resistance: 10e3, ratedPower: 0.25, limitingVoltage: 200, overloadVoltage: 400, pulseEnergy: 0.5 },
-      shunts: [{ kind: 'zener', id: 'D1', bidirectional: true, zenerVoltage: 12, dynamicImpedance: 9, testCurrent: 5e-3, powerRating: 0.5 }],
+      series: {
+        kind: 'resistor',
+        id: 'R1',
+        resistance: 10e3,
+        ratedPower: 0.25,
+        limitingVoltage: 200,
+        overloadVoltage: 400,
+        pulseEnergy: 0.5,
+      },
+      shunts: [
+        {
+          kind: 'zener',
+          id: 'D1',
+          bidirectional: true,
+          zenerVoltage: 12,
+          dynamicImpedance: 9,
+          testCurrent: 5e-3,
+          powerRating: 0.5,
+        },
+      ],
     },
   ],
-  input: { positiveRail: 24, negativeRail: 0, absMaxBeyondRail: 0.3, inputResistance: 1e6, internalClamps: true },
+  input: {
+    positiveRail: 24,
+    negativeRail: 0,
+    absMaxBeyondRail: 0.3,
+    inputResistance: 1e6,
+    internalClamps: true,
+  },
 };
-const conditions: StressConditions = { ambientC: 40, powerDerating: 0.5, voltageDerating: 0.8, appliedTo: 'signal' };
+const conditions: StressConditions = {
+  ambientC: 40,
+  powerDerating: 0.5,
+  voltageDerating: 0.8,
+  appliedTo: 'signal',
+};
 
 const CASES: StressCase[] = [
   // 230 V + 10 % (IEC 60038) line-to-earth at 50 Hz.
@@ -109,13 +144,25 @@ describe('channel page numbers equal the engine’s', () => {
     it(`${c.kind}: every number shown is the engine's figure, same rounding`, () => {
       const result = solveStress(guard, c, conditions);
       const { waveform } = solveStress(guard, c, conditions, { waveform: true });
-      const html = renderToStaticMarkup(createElement(CaseCalculations, { guard, result, conditions, waveform }));
-      const text = html.replace(/<[^>]+>/g, ' ').replace(/&#x27;|&quot;|&amp;/g, "'").replace(/\s+/g, ' ');
+      const html = renderToStaticMarkup(
+        createElement(CaseCalculations, { guard, result, conditions, waveform }),
+      );
+      const text = html
+        .replace(/<[^>]+>/g, ' ')
+        .replace(/&#x27;|&quot;|&amp;/g, "'")
+        .replace(/\s+/g, ' ');
       const allowed = allowedTexts(result, c, waveform);
       // Reasons are the engine's own sentences; take them out before checking our figures.
       let ours = text;
-      for (const reason of [result.reason, result.input.reason, ...result.elements.map((e) => e.reason)]) ours = ours.split(reason).join(' ');
-      const shownNumbers = [...ours.matchAll(NUMBER_WITH_UNIT)].map((m) => `${m[1]} ${m[2]}${m[3]}`);
+      for (const reason of [
+        result.reason,
+        result.input.reason,
+        ...result.elements.map((e) => e.reason),
+      ])
+        ours = ours.split(reason).join(' ');
+      const shownNumbers = [...ours.matchAll(NUMBER_WITH_UNIT)].map(
+        (m) => `${m[1]} ${m[2]}${m[3]}`,
+      );
       expect(shownNumbers.length).toBeGreaterThan(4);
       const strangers = shownNumbers.filter((n) => !allowed.has(n));
       expect(strangers).toEqual([]);
@@ -141,7 +188,10 @@ describe('channel page numbers equal the engine’s', () => {
             expect(marginLine.result.text).toBe(formatMargin(k.margin));
           }
           const deratedLine = lines.find((l) => l.id === `derated-${e.elementId}-${i}`);
-          if (deratedLine) expect(deratedLine.result.text).toBe(formatEng(k.deratedRating!, QUANTITY_UNIT[k.quantity]));
+          if (deratedLine)
+            expect(deratedLine.result.text).toBe(
+              formatEng(k.deratedRating!, QUANTITY_UNIT[k.quantity]),
+            );
         }
       }
     });
@@ -158,9 +208,15 @@ describe('channel page numbers equal the engine’s', () => {
     const { waveform } = solveStress(guard, CASES[0]!, conditions, { waveform: true });
     const line = formulasFor(guard, result, waveform).find((l) => l.id === 'peak-current')!;
     expect(line.note).toBeUndefined();
-    expect(line.substituted).toMatch(new RegExp(`^\\|-${formatEng(253 * Math.SQRT2, 'V')} − \\(-[0-9.]+ m?V\\)\\| / ${formatEng(10e3 + 0.1, 'Ω')}$`));
+    expect(line.substituted).toMatch(
+      new RegExp(
+        `^\\|-${formatEng(253 * Math.SQRT2, 'V')} − \\(-[0-9.]+ m?V\\)\\| / ${formatEng(10e3 + 0.1, 'Ω')}$`,
+      ),
+    );
     // Without the waveform the peaks do not coincide: the line says so instead of pretending.
-    expect(formulasFor(guard, result).find((l) => l.id === 'peak-current')!.note).toMatch(/peaks as simultaneous/);
+    expect(formulasFor(guard, result).find((l) => l.id === 'peak-current')!.note).toMatch(
+      /peaks as simultaneous/,
+    );
     // P = I_rms² R for the resistor equals the engine's integrated average power.
     const power = formulasFor(guard, result).find((l) => l.id === 'power-R1')!;
     expect(power.note).toBeUndefined();

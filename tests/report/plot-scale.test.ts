@@ -1,5 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { axisPrefix, decimate, linearScale, niceAxis, niceStep, tickLabel } from '@/lib/report/plot-scale';
+import {
+  axisPrefix,
+  decimate,
+  linearScale,
+  niceAxis,
+  niceStep,
+  tickLabel,
+} from '@/lib/report/plot-scale';
 
 describe('plot scaling', () => {
   it('picks 1-2-5 steps (common practice for axis ticks, no source)', () => {

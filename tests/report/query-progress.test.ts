@@ -1,12 +1,36 @@
 import { describe, expect, it } from 'vitest';
-import { findingsQueryString, matchesMechanism, parseFindingsQuery, toFindingFilters } from '@/lib/report/findings-query';
+import {
+  findingsQueryString,
+  matchesMechanism,
+  parseFindingsQuery,
+  toFindingFilters,
+} from '@/lib/report/findings-query';
 import { overallFraction, takeLines } from '@/lib/report/progress';
 
 describe('findings table state in the URL', () => {
   it('round-trips through the query string and leaves defaults out', () => {
-    const q = parseFindingsQuery({ verdict: 'fails,unprotected', mechanism: 'neighbour', case: 'surge', cabinet: '3', strip: '7', dir: 'desc', page: '2' });
-    expect(q).toMatchObject({ verdict: ['fails', 'unprotected'], mechanism: ['neighbour'], caseKind: ['surge'], cabinetId: 3, stripId: 7, sort: 'margin', dir: 'desc', page: 2 });
-    expect(parseFindingsQuery(Object.fromEntries(new URLSearchParams(findingsQueryString(q).slice(1))))).toEqual(q);
+    const q = parseFindingsQuery({
+      verdict: 'fails,unprotected',
+      mechanism: 'neighbour',
+      case: 'surge',
+      cabinet: '3',
+      strip: '7',
+      dir: 'desc',
+      page: '2',
+    });
+    expect(q).toMatchObject({
+      verdict: ['fails', 'unprotected'],
+      mechanism: ['neighbour'],
+      caseKind: ['surge'],
+      cabinetId: 3,
+      stripId: 7,
+      sort: 'margin',
+      dir: 'desc',
+      page: 2,
+    });
+    expect(
+      parseFindingsQuery(Object.fromEntries(new URLSearchParams(findingsQueryString(q).slice(1)))),
+    ).toEqual(q);
     expect(findingsQueryString(parseFindingsQuery({}))).toBe('');
   });
 
@@ -15,7 +39,13 @@ describe('findings table state in the URL', () => {
   });
 
   it('drops words it does not know and ids that are not positive whole numbers', () => {
-    const q = parseFindingsQuery({ verdict: 'fails,broken', case: 'lightning', cabinet: '-1', strip: '2.5', sort: 'colour' });
+    const q = parseFindingsQuery({
+      verdict: 'fails,broken',
+      case: 'lightning',
+      cabinet: '-1',
+      strip: '2.5',
+      sort: 'colour',
+    });
     expect(q.verdict).toEqual(['fails']);
     expect(q.caseKind).toEqual([]);
     expect(q.cabinetId).toBeNull();

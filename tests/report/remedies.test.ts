@@ -13,8 +13,16 @@ import type { Guard, HazardTerminal, StressCase, StressConditions } from '@/lib/
 const guard: Guard = {
   stages: [
     {
-      series: { kind: 'resistor', id: 'R1', resistance: 100, ratedPower: 0.25, limitingVoltage: 200 },
-      shunts: [{ kind: 'shuntResistor', id: 'RB', resistance: 250, ratedPower: 0.6, limitingVoltage: 350 }],
+      series: {
+        kind: 'resistor',
+        id: 'R1',
+        resistance: 100,
+        ratedPower: 0.25,
+        limitingVoltage: 200,
+      },
+      shunts: [
+        { kind: 'shuntResistor', id: 'RB', resistance: 250, ratedPower: 0.6, limitingVoltage: 350 },
+      ],
     },
   ],
   input: { positiveRail: 30, negativeRail: 0, absMaxBeyondRail: 5, inputResistance: 1e6 },
@@ -42,12 +50,15 @@ describe('remedies on the channel page', () => {
     const holding = options.filter((o) => /: holds\.$/.test(o.detail));
     expect(holding.length).toBeGreaterThan(0);
     // Larger series resistance is the change that helps against mains (Ohm's law: less current).
-    expect(holding.some((o) => o.changes.some((c) => c.elementId === 'R1' && c.field === 'resistance'))).toBe(true);
+    expect(
+      holding.some((o) => o.changes.some((c) => c.elementId === 'R1' && c.field === 'resistance')),
+    ).toBe(true);
     for (const o of holding) {
       const edits: Record<string, Record<string, number>> = {};
       for (const c of o.changes) (edits[c.elementId] ??= {})[c.field] = c.to;
       const trial = withEdits(guard, edits);
-      for (const c of cases) expect(solveStress(trial, c.stress, conditions[c.appliedTo]).verdict).toBe('holds');
+      for (const c of cases)
+        expect(solveStress(trial, c.stress, conditions[c.appliedTo]).verdict).toBe('holds');
     }
     // The page's guard is never touched by a trial.
     expect(guard.stages[0]!.series).toMatchObject({ resistance: 100, ratedPower: 0.25 });
@@ -62,7 +73,9 @@ describe('remedies on the channel page', () => {
       const edits: Record<string, Record<string, number>> = {};
       for (const c of o.changes) (edits[c.elementId] ??= {})[c.field] = c.to;
       const trial = withEdits(guard, edits);
-      const verdicts = bothSides.map((c) => solveStress(trial, c.stress, conditions[c.appliedTo]).verdict);
+      const verdicts = bothSides.map(
+        (c) => solveStress(trial, c.stress, conditions[c.appliedTo]).verdict,
+      );
       const holds = verdicts.every((v) => v === 'holds');
       expect(/: holds\.$/.test(o.detail)).toBe(holds);
     }
@@ -72,7 +85,9 @@ describe('remedies on the channel page', () => {
   it('a channel that already holds gets no suggestion', () => {
     const strong: Guard = structuredClone(guard);
     Object.assign(strong.stages[0]!.series, { resistance: 10e3, ratedPower: 2 });
-    const verdicts = signalSide.map((c) => solveStress(strong, c.stress, conditions[c.appliedTo]).verdict);
+    const verdicts = signalSide.map(
+      (c) => solveStress(strong, c.stress, conditions[c.appliedTo]).verdict,
+    );
     expect(verdicts).toEqual(['holds']);
     expect(remedyOptions(strong, signalSide, conditions)).toEqual([]);
   });

@@ -29,7 +29,11 @@ const CLASS_LABELS: Record<string, string> = {
   barrier: 'Barriers',
 };
 
-export default async function ProjectOverviewPage({ params }: { params: Promise<{ projectId: string }> }) {
+export default async function ProjectOverviewPage({
+  params,
+}: {
+  params: Promise<{ projectId: string }>;
+}) {
   const { projectId } = await params;
   const user = await getSignedInUser();
   if (!user) redirect('/sign-in');
@@ -47,7 +51,11 @@ export default async function ProjectOverviewPage({ params }: { params: Promise<
       ? {
           status: await getAuditStatus(Number(projectId)),
           detail: runId !== null ? await getAuditRun(Number(projectId), runId) : null,
-          findings: runId !== null ? (await listFindings(Number(projectId), runId, { kind: ['stress'], all: true })).items : [],
+          findings:
+            runId !== null
+              ? (await listFindings(Number(projectId), runId, { kind: ['stress'], all: true }))
+                  .items
+              : [],
           mayRun: can(standing, 'audit:run'),
         }
       : null;
@@ -77,8 +85,8 @@ export default async function ProjectOverviewPage({ params }: { params: Promise<
         <Panel>
           <p className="font-medium">This project has no terminal schedule yet.</p>
           <p className="mt-1 text-sm text-muted">
-            A controls engineer adds the cabinets and their strips first, then enters or imports each
-            strip&apos;s terminals and maps the input channels to them.
+            A controls engineer adds the cabinets and their strips first, then enters or imports
+            each strip&apos;s terminals and maps the input channels to them.
           </p>
         </Panel>
       ) : (
@@ -114,7 +122,10 @@ export default async function ProjectOverviewPage({ params }: { params: Promise<
               {Object.entries(terminalsByClass).map(([cls, n]) => (
                 <li key={cls} className="flex items-center justify-between gap-2">
                   <span className="flex items-center gap-2">
-                    <span aria-hidden className={`inline-block h-3 w-3 rounded-[2px] ${CLASS_SWATCH[cls] ?? 'bg-line'}`} />
+                    <span
+                      aria-hidden
+                      className={`inline-block h-3 w-3 rounded-[2px] ${CLASS_SWATCH[cls] ?? 'bg-line'}`}
+                    />
                     {CLASS_LABELS[cls] ?? cls}
                   </span>
                   <span className="font-mono">{n}</span>

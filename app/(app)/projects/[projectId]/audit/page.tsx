@@ -7,7 +7,14 @@ import { VerdictBadge } from '@/components/report/verdict-badge';
 import { Caution } from '@/components/ui/caution';
 import { Panel, PanelTitle } from '@/components/ui/panel';
 import { can } from '@/lib/auth/permissions';
-import { getAuditRun, getAuditStatus, getRunSnapshot, latestRunId, listFindings, type StoredFinding } from '@/lib/data/audits';
+import {
+  getAuditRun,
+  getAuditStatus,
+  getRunSnapshot,
+  latestRunId,
+  listFindings,
+  type StoredFinding,
+} from '@/lib/data/audits';
 import { getSignedInUser, loadStanding } from '@/lib/data/membership';
 import { formatMargin, VERDICT_LABEL, VERDICT_ORDER } from '@/lib/report/format';
 import {
@@ -24,8 +31,17 @@ import { MECHANISM_LABEL } from '@/lib/report/vocabulary';
 
 export const metadata: Metadata = { title: 'Audit findings' };
 
-const CASE_LABEL: Record<string, string> = { ac: 'AC mains', dc: 'DC supply', surge: 'Surge', esd: 'ESD' };
-const KIND_LABEL: Record<string, string> = { stress: 'Stress', segregation: 'Segregation', colour: 'Wire colour' };
+const CASE_LABEL: Record<string, string> = {
+  ac: 'AC mains',
+  dc: 'DC supply',
+  surge: 'Surge',
+  esd: 'ESD',
+};
+const KIND_LABEL: Record<string, string> = {
+  stress: 'Stress',
+  segregation: 'Segregation',
+  colour: 'Wire colour',
+};
 
 function toRow(f: StoredFinding, delta: Map<string, 'new' | 'changed'>): FindingRow {
   return {
@@ -75,7 +91,8 @@ export default async function FindingsPage({
         <Panel>
           <p className="font-medium">No audit has been run on this project yet.</p>
           <p className="mt-1 text-sm text-muted">
-            An audit maps every sensitive channel&apos;s exposures to hazards and solves the stress on its guard for each case.
+            An audit maps every sensitive channel&apos;s exposures to hazards and solves the stress
+            on its guard for each case.
             {mayRun ? ' Run the first one here.' : ' A controls engineer runs it.'}
           </p>
           {mayRun && (
@@ -91,28 +108,45 @@ export default async function FindingsPage({
   const detail = await getAuditRun(projectId, runId);
   const assumed = (await getRunSnapshot(projectId, runId)).settings;
   const all = (await listFindings(projectId, runId, { pageSize: 2000, all: true })).items;
-  const filtered = (await listFindings(projectId, runId, { ...toFindingFilters(query), all: true })).items.filter((f) =>
-    matchesMechanism(query, f.mechanism),
-  );
+  const filtered = (
+    await listFindings(projectId, runId, { ...toFindingFilters(query), all: true })
+  ).items.filter((f) => matchesMechanism(query, f.mechanism));
 
   const deltaMark = new Map<string, 'new' | 'changed'>();
   for (const k of detail.delta?.newKeys ?? []) deltaMark.set(k, 'new');
   for (const c of detail.delta?.changed ?? []) deltaMark.set(c.key, 'changed');
   const pages = Math.max(1, Math.ceil(filtered.length / FINDINGS_PAGE_SIZE));
   const page = Math.min(query.page, pages);
-  const rows = filtered.slice((page - 1) * FINDINGS_PAGE_SIZE, page * FINDINGS_PAGE_SIZE).map((f) => toRow(f, deltaMark));
+  const rows = filtered
+    .slice((page - 1) * FINDINGS_PAGE_SIZE, page * FINDINGS_PAGE_SIZE)
+    .map((f) => toRow(f, deltaMark));
 
-  const cabinets = [...new Map(all.filter((f) => f.cabinetId !== null).map((f) => [f.cabinetId!, f.cabinetTag ?? ''])).entries()].sort((a, b) => a[1].localeCompare(b[1]));
+  const cabinets = [
+    ...new Map(
+      all.filter((f) => f.cabinetId !== null).map((f) => [f.cabinetId!, f.cabinetTag ?? '']),
+    ).entries(),
+  ].sort((a, b) => a[1].localeCompare(b[1]));
   const strips = [
     ...new Map(
       all
-        .filter((f) => f.stripId !== null && (query.cabinetId === null || f.cabinetId === query.cabinetId))
+        .filter(
+          (f) =>
+            f.stripId !== null && (query.cabinetId === null || f.cabinetId === query.cabinetId),
+        )
         .map((f) => [f.stripId!, `${f.cabinetTag ?? ''} / ${f.stripTag ?? ''}`]),
     ).entries(),
   ].sort((a, b) => a[1].localeCompare(b[1]));
 
-  const flipDir = { ...query, page: 1, sort: 'margin' as const, dir: query.sort === 'margin' && query.dir === 'asc' ? ('desc' as const) : ('asc' as const) };
-  const marginSortLabel = query.sort === 'margin' && query.dir === 'desc' ? 'sorted descending; activate for ascending' : 'sorted ascending; activate for descending';
+  const flipDir = {
+    ...query,
+    page: 1,
+    sort: 'margin' as const,
+    dir: query.sort === 'margin' && query.dir === 'asc' ? ('desc' as const) : ('asc' as const),
+  };
+  const marginSortLabel =
+    query.sort === 'margin' && query.dir === 'desc'
+      ? 'sorted descending; activate for ascending'
+      : 'sorted ascending; activate for descending';
 
   const csv = new URLSearchParams();
   if (query.verdict.length) csv.set('verdict', query.verdict.join(','));
@@ -135,8 +169,10 @@ export default async function FindingsPage({
         <div>
           <h2 className="text-xl font-semibold">Audit findings</h2>
           <p className="text-sm text-muted">
-            Run #{detail.run.id} of {new Date(detail.run.createdAt).toLocaleString('en-GB', { timeZone: 'UTC' })} UTC
-            {detail.run.createdBy && <> by {detail.run.createdBy.name}</>} · review: {detail.run.reviewState}
+            Run #{detail.run.id} of{' '}
+            {new Date(detail.run.createdAt).toLocaleString('en-GB', { timeZone: 'UTC' })} UTC
+            {detail.run.createdBy && <> by {detail.run.createdBy.name}</>} · review:{' '}
+            {detail.run.reviewState}
             {' · '}
             {status.stale ? (
               <strong className="text-caution">schedule changed since this run</strong>
@@ -151,10 +187,11 @@ export default async function FindingsPage({
       <Caution />
 
       <p className="text-sm text-muted" data-testid="run-assumptions">
-        Assumptions of this run: supply tolerance +{Math.round(assumed.supplyTolerance * 1000) / 10} %, DC supply maximum{' '}
-        {assumed.dcSupplyMax} V, surge {assumed.surgeLevelKv} kV ({assumed.surgeCoupling} coupling), ESD {assumed.esdLevelKv} kV
-        contact, cabinet ambient {assumed.ambientC} °C, derating to {Math.round(assumed.powerDerating * 100)} % of rated power and{' '}
-        {Math.round(assumed.voltageDerating * 100)} % of rated voltage.{' '}
+        Assumptions of this run: supply tolerance +{Math.round(assumed.supplyTolerance * 1000) / 10}{' '}
+        %, DC supply maximum {assumed.dcSupplyMax} V, surge {assumed.surgeLevelKv} kV (
+        {assumed.surgeCoupling} coupling), ESD {assumed.esdLevelKv} kV contact, cabinet ambient{' '}
+        {assumed.ambientC} °C, derating to {Math.round(assumed.powerDerating * 100)} % of rated
+        power and {Math.round(assumed.voltageDerating * 100)} % of rated voltage.{' '}
         <Link href={`/projects/${projectId}/settings`} className="underline underline-offset-2">
           {can(standing, 'settings:write') ? 'Edit the assumptions' : 'See the assumptions'}
         </Link>
@@ -170,7 +207,9 @@ export default async function FindingsPage({
             >
               <VerdictBadge verdict={v} />
               <span className="mt-1 block font-mono text-2xl">{summary.channelsByVerdict[v]}</span>
-              <span className="text-xs text-muted">channels · {summary.findingsByVerdict[v]} findings</span>
+              <span className="text-xs text-muted">
+                channels · {summary.findingsByVerdict[v]} findings
+              </span>
             </Link>
           ))}
         </section>
@@ -178,31 +217,49 @@ export default async function FindingsPage({
 
       {delta && delta.previousRunId !== null && (
         <Panel aria-label="Changes since the previous run">
-          <PanelTitle aside={<span className="text-xs text-muted">against run #{delta.previousRunId}</span>}>Since the previous run</PanelTitle>
+          <PanelTitle
+            aside={<span className="text-xs text-muted">against run #{delta.previousRunId}</span>}
+          >
+            Since the previous run
+          </PanelTitle>
           <p className="text-sm" data-testid="run-delta">
-            <strong>{delta.newFindings}</strong> new, <strong>{delta.resolvedFindings}</strong> resolved,{' '}
-            <strong>{delta.changedFindings}</strong> changed findings; <strong>{delta.newChecks}</strong> new and{' '}
-            <strong>{delta.resolvedChecks}</strong> resolved rule checks.{' '}
-            {delta.inputsChanged ? 'The schedule or assumptions changed between the runs.' : 'The inputs were identical.'}
+            <strong>{delta.newFindings}</strong> new, <strong>{delta.resolvedFindings}</strong>{' '}
+            resolved, <strong>{delta.changedFindings}</strong> changed findings;{' '}
+            <strong>{delta.newChecks}</strong> new and <strong>{delta.resolvedChecks}</strong>{' '}
+            resolved rule checks.{' '}
+            {delta.inputsChanged
+              ? 'The schedule or assumptions changed between the runs.'
+              : 'The inputs were identical.'}
           </p>
-          {(delta.newKeys.length > 0 || delta.resolvedKeys.length > 0 || delta.changed.length > 0) && (
+          {(delta.newKeys.length > 0 ||
+            delta.resolvedKeys.length > 0 ||
+            delta.changed.length > 0) && (
             <details className="mt-2 text-sm">
               <summary className="cursor-pointer text-muted">List them</summary>
               <div className="mt-2 grid gap-4 md:grid-cols-3">
                 <div>
                   <h3 className="text-xs font-semibold text-muted uppercase">New</h3>
-                  <ul className="font-mono text-xs">{delta.newKeys.slice(0, 200).map((k) => <li key={k}>{k}</li>)}</ul>
+                  <ul className="font-mono text-xs">
+                    {delta.newKeys.slice(0, 200).map((k) => (
+                      <li key={k}>{k}</li>
+                    ))}
+                  </ul>
                 </div>
                 <div>
                   <h3 className="text-xs font-semibold text-muted uppercase">Resolved</h3>
-                  <ul className="font-mono text-xs">{delta.resolvedKeys.slice(0, 200).map((k) => <li key={k}>{k}</li>)}</ul>
+                  <ul className="font-mono text-xs">
+                    {delta.resolvedKeys.slice(0, 200).map((k) => (
+                      <li key={k}>{k}</li>
+                    ))}
+                  </ul>
                 </div>
                 <div>
                   <h3 className="text-xs font-semibold text-muted uppercase">Changed</h3>
                   <ul className="space-y-1 text-xs">
                     {delta.changed.slice(0, 200).map((c) => (
                       <li key={c.key}>
-                        <span className="font-mono">{c.key}</span>: {VERDICT_LABEL[c.before.verdict]} ({formatMargin(c.before.margin)}) →{' '}
+                        <span className="font-mono">{c.key}</span>:{' '}
+                        {VERDICT_LABEL[c.before.verdict]} ({formatMargin(c.before.margin)}) →{' '}
                         {VERDICT_LABEL[c.after.verdict]} ({formatMargin(c.after.margin)})
                       </li>
                     ))}
@@ -222,15 +279,28 @@ export default async function FindingsPage({
             </a>
           }
         >
-          Findings <span className="font-mono text-muted normal-case">({filtered.length} of {all.length})</span>
+          Findings{' '}
+          <span className="font-mono text-muted normal-case">
+            ({filtered.length} of {all.length})
+          </span>
         </PanelTitle>
-        <form method="get" action={base} className="mb-4 flex flex-wrap items-end gap-x-5 gap-y-3 text-sm" aria-label="Filter findings">
+        <form
+          method="get"
+          action={base}
+          className="mb-4 flex flex-wrap items-end gap-x-5 gap-y-3 text-sm"
+          aria-label="Filter findings"
+        >
           <fieldset>
             <legend className="mb-1 text-xs text-muted">Verdict</legend>
             <div className="flex flex-wrap gap-x-3 gap-y-1">
               {VERDICT_ORDER.map((v) => (
                 <label key={v} className="flex items-center gap-1">
-                  <input type="checkbox" name="verdict" value={v} defaultChecked={query.verdict.includes(v)} />
+                  <input
+                    type="checkbox"
+                    name="verdict"
+                    value={v}
+                    defaultChecked={query.verdict.includes(v)}
+                  />
                   {VERDICT_LABEL[v]}
                 </label>
               ))}
@@ -238,7 +308,11 @@ export default async function FindingsPage({
           </fieldset>
           <label>
             <span className="mb-1 block text-xs text-muted">Cabinet</span>
-            <select name="cabinet" defaultValue={query.cabinetId ?? ''} className="h-9 rounded-sm border border-line bg-panel px-2">
+            <select
+              name="cabinet"
+              defaultValue={query.cabinetId ?? ''}
+              className="h-9 rounded-sm border border-line bg-panel px-2"
+            >
               <option value="">All</option>
               {cabinets.map(([id, tag]) => (
                 <option key={id} value={id}>
@@ -249,7 +323,11 @@ export default async function FindingsPage({
           </label>
           <label>
             <span className="mb-1 block text-xs text-muted">Strip</span>
-            <select name="strip" defaultValue={query.stripId ?? ''} className="h-9 rounded-sm border border-line bg-panel px-2">
+            <select
+              name="strip"
+              defaultValue={query.stripId ?? ''}
+              className="h-9 rounded-sm border border-line bg-panel px-2"
+            >
               <option value="">All</option>
               {strips.map(([id, tag]) => (
                 <option key={id} value={id}>
@@ -260,7 +338,11 @@ export default async function FindingsPage({
           </label>
           <label>
             <span className="mb-1 block text-xs text-muted">Exposure</span>
-            <select name="mechanism" defaultValue={query.mechanism[0] ?? ''} className="h-9 rounded-sm border border-line bg-panel px-2">
+            <select
+              name="mechanism"
+              defaultValue={query.mechanism[0] ?? ''}
+              className="h-9 rounded-sm border border-line bg-panel px-2"
+            >
               <option value="">All</option>
               {MECHANISM_FILTERS.map((m) => (
                 <option key={m} value={m}>
@@ -271,7 +353,11 @@ export default async function FindingsPage({
           </label>
           <label>
             <span className="mb-1 block text-xs text-muted">Stress case</span>
-            <select name="case" defaultValue={query.caseKind[0] ?? ''} className="h-9 rounded-sm border border-line bg-panel px-2">
+            <select
+              name="case"
+              defaultValue={query.caseKind[0] ?? ''}
+              className="h-9 rounded-sm border border-line bg-panel px-2"
+            >
               <option value="">All</option>
               {CASE_KINDS.map((c) => (
                 <option key={c} value={c}>
@@ -282,7 +368,11 @@ export default async function FindingsPage({
           </label>
           <label>
             <span className="mb-1 block text-xs text-muted">Kind</span>
-            <select name="kind" defaultValue={query.kind[0] ?? ''} className="h-9 rounded-sm border border-line bg-panel px-2">
+            <select
+              name="kind"
+              defaultValue={query.kind[0] ?? ''}
+              className="h-9 rounded-sm border border-line bg-panel px-2"
+            >
               <option value="">All</option>
               {KIND_FILTERS.map((k) => (
                 <option key={k} value={k}>
@@ -294,7 +384,10 @@ export default async function FindingsPage({
           {query.sort !== 'margin' && <input type="hidden" name="sort" value={query.sort} />}
           {query.dir !== 'asc' && <input type="hidden" name="dir" value={query.dir} />}
           <div className="flex items-center gap-3">
-            <button type="submit" className="h-9 rounded-sm border border-ink bg-panel px-3 font-medium hover:bg-accent-soft">
+            <button
+              type="submit"
+              className="h-9 rounded-sm border border-ink bg-panel px-3 font-medium hover:bg-accent-soft"
+            >
               Apply filters
             </button>
             <Link href={base} className="text-muted underline-offset-2 hover:underline">
@@ -309,9 +402,13 @@ export default async function FindingsPage({
           marginSortLabel={marginSortLabel}
         />
         {pages > 1 && (
-          <nav aria-label="Pages of findings" className="mt-3 flex flex-wrap items-center gap-2 text-sm">
+          <nav
+            aria-label="Pages of findings"
+            className="mt-3 flex flex-wrap items-center gap-2 text-sm"
+          >
             <span className="text-muted">
-              Rows {(page - 1) * FINDINGS_PAGE_SIZE + 1}–{Math.min(page * FINDINGS_PAGE_SIZE, filtered.length)} of {filtered.length}
+              Rows {(page - 1) * FINDINGS_PAGE_SIZE + 1}–
+              {Math.min(page * FINDINGS_PAGE_SIZE, filtered.length)} of {filtered.length}
             </span>
             {Array.from({ length: pages }, (_, k) => k + 1).map((n) => (
               <Link
@@ -329,10 +426,13 @@ export default async function FindingsPage({
 
       {detail.unmappedChannels.length > 0 && (
         <p className="text-sm text-muted">
-          Not audited (no signal terminal mapped): {detail.unmappedChannels.map((c) => c.tag).join(', ')}.
+          Not audited (no signal terminal mapped):{' '}
+          {detail.unmappedChannels.map((c) => c.tag).join(', ')}.
         </p>
       )}
-      {channelTags.size === 0 && <p className="text-sm text-muted">The run found no channels to audit.</p>}
+      {channelTags.size === 0 && (
+        <p className="text-sm text-muted">The run found no channels to audit.</p>
+      )}
       <Caution />
     </div>
   );

@@ -58,7 +58,8 @@ export default async function ChannelPage({
   const waveform = selected?.waveformKey ? detail.waveforms[selected.waveformKey] : null;
   const voltageTraces = waveform ? waveform.traces.filter((t) => t.unit === 'V') : [];
   const currentTraces = waveform ? waveform.traces.filter((t) => t.unit === 'A') : [];
-  const caseHref = (key: string) => `${base}/channels/${channelId}?case=${encodeURIComponent(key)}#case`;
+  const caseHref = (key: string) =>
+    `${base}/channels/${channelId}?case=${encodeURIComponent(key)}#case`;
 
   return (
     <div className="space-y-6">
@@ -76,9 +77,16 @@ export default async function ChannelPage({
             {detail.worstVerdict && <VerdictBadge verdict={detail.worstVerdict} size="lg" />}
           </h2>
           <p className="mt-1 text-sm text-muted">
-            {channel.name ?? 'Unnamed channel'} · cabinet <span className="font-mono">{channel.cabinetTag}</span> · {channel.signalType} ·
-            guard {channel.guardRecipeName ? <span className="font-medium text-ink">{channel.guardRecipeName}</span> : <strong className="text-ink">none</strong>}
-            {detail.overriddenIds.length > 0 && <> (as built: {detail.overriddenIds.join(', ')} differ from the recipe)</>}
+            {channel.name ?? 'Unnamed channel'} · cabinet{' '}
+            <span className="font-mono">{channel.cabinetTag}</span> · {channel.signalType} · guard{' '}
+            {channel.guardRecipeName ? (
+              <span className="font-medium text-ink">{channel.guardRecipeName}</span>
+            ) : (
+              <strong className="text-ink">none</strong>
+            )}
+            {detail.overriddenIds.length > 0 && (
+              <> (as built: {detail.overriddenIds.join(', ')} differ from the recipe)</>
+            )}
           </p>
           {worstFinding && (
             <p className="mt-2 max-w-3xl text-base" data-testid="channel-reason">
@@ -94,14 +102,18 @@ export default async function ChannelPage({
         <Panel>
           <p className="font-medium">This project has not been audited yet.</p>
           <p className="mt-1 text-sm text-muted">
-            The stress on this channel is worked out by an audit run. <Link className="underline" href={base}>Go to the findings</Link> to run one.
+            The stress on this channel is worked out by an audit run.{' '}
+            <Link className="underline" href={base}>
+              Go to the findings
+            </Link>{' '}
+            to run one.
           </p>
         </Panel>
       )}
       {run?.stale && (
         <p role="status" className="rounded-sm border border-caution bg-caution-soft p-3 text-sm">
-          The schedule or the assumptions changed after audit run #{run.id}. What follows is that run&apos;s result; run the
-          audit again to bring it up to date.
+          The schedule or the assumptions changed after audit run #{run.id}. What follows is that
+          run&apos;s result; run the audit again to bring it up to date.
         </p>
       )}
 
@@ -122,7 +134,11 @@ export default async function ChannelPage({
             <p className="text-sm text-muted">The channel is not mapped to a terminal.</p>
           )}
           {detail.strips.map((s) => (
-            <Link key={s.id} href={`${base}/strips/${s.id}`} className="mr-3 text-sm underline-offset-2 hover:underline">
+            <Link
+              key={s.id}
+              href={`${base}/strips/${s.id}`}
+              className="mr-3 text-sm underline-offset-2 hover:underline"
+            >
               Strip {s.tag}: verdicts and re-sequencing →
             </Link>
           ))}
@@ -130,37 +146,68 @@ export default async function ChannelPage({
         <Panel className="min-w-0">
           <PanelTitle>Guard</PanelTitle>
           {guard ? (
-            <GuardSchematic guard={guard} marked={detail.overriddenIds} title={`Guard of ${channel.tag}`} />
+            <GuardSchematic
+              guard={guard}
+              marked={detail.overriddenIds}
+              title={`Guard of ${channel.tag}`}
+            />
           ) : (
             <p className="text-sm">
-              <strong>No guard.</strong> Nothing limits the current a hazard can push into this input.
+              <strong>No guard.</strong> Nothing limits the current a hazard can push into this
+              input.
             </p>
           )}
         </Panel>
       </div>
 
       <Panel>
-        <PanelTitle aside={<span className="text-xs text-muted">{exposed.length} exposures</span>}>Exposures</PanelTitle>
+        <PanelTitle aside={<span className="text-xs text-muted">{exposed.length} exposures</span>}>
+          Exposures
+        </PanelTitle>
         {exposed.length === 0 ? (
-          <p className="text-sm text-muted">No hazard terminal can reach this channel by a wiring mistake the mapping knows of.</p>
+          <p className="text-sm text-muted">
+            No hazard terminal can reach this channel by a wiring mistake the mapping knows of.
+          </p>
         ) : (
           <div className="overflow-x-auto">
             <table className="w-full text-sm">
-              <caption className="sr-only">Hazard terminals a mistake could connect to this channel</caption>
+              <caption className="sr-only">
+                Hazard terminals a mistake could connect to this channel
+              </caption>
               <thead className="text-left text-xs text-muted">
                 <tr>
-                  <th scope="col" className="py-1 pr-3 font-medium">Hazard</th>
-                  <th scope="col" className="py-1 pr-3 font-medium">Reaches</th>
-                  <th scope="col" className="py-1 pr-3 font-medium">How</th>
-                  <th scope="col" className="py-1 pr-3 font-medium">Likelihood</th>
-                  <th scope="col" className="py-1 pr-3 font-medium">Case</th>
-                  <th scope="col" className="py-1 pr-3 text-right font-medium">Margin</th>
-                  <th scope="col" className="py-1 font-medium">Verdict</th>
+                  <th scope="col" className="py-1 pr-3 font-medium">
+                    Hazard
+                  </th>
+                  <th scope="col" className="py-1 pr-3 font-medium">
+                    Reaches
+                  </th>
+                  <th scope="col" className="py-1 pr-3 font-medium">
+                    How
+                  </th>
+                  <th scope="col" className="py-1 pr-3 font-medium">
+                    Likelihood
+                  </th>
+                  <th scope="col" className="py-1 pr-3 font-medium">
+                    Case
+                  </th>
+                  <th scope="col" className="py-1 pr-3 text-right font-medium">
+                    Margin
+                  </th>
+                  <th scope="col" className="py-1 font-medium">
+                    Verdict
+                  </th>
                 </tr>
               </thead>
               <tbody>
                 {exposed.map(({ finding: f }) => (
-                  <tr key={f.key} className={cn('border-t border-line', selected?.finding.key === f.key && 'bg-accent-soft')}>
+                  <tr
+                    key={f.key}
+                    className={cn(
+                      'border-t border-line',
+                      selected?.finding.key === f.key && 'bg-accent-soft',
+                    )}
+                  >
                     <td className="py-1.5 pr-3 font-mono">
                       <Link href={caseHref(f.key)} className="underline-offset-2 hover:underline">
                         {f.exposure!.hazardLabel}
@@ -168,7 +215,8 @@ export default async function ChannelPage({
                     </td>
                     <td className="py-1.5 pr-3 font-mono">{f.exposure!.targetLabel}</td>
                     <td className="py-1.5 pr-3">
-                      {MECHANISM_LABEL[f.exposure!.mechanism]}, {ROUTE_LABEL[f.exposure!.route] ?? f.exposure!.route}
+                      {MECHANISM_LABEL[f.exposure!.mechanism]},{' '}
+                      {ROUTE_LABEL[f.exposure!.route] ?? f.exposure!.route}
                     </td>
                     <td className="py-1.5 pr-3">{LIKELIHOOD_LABEL[f.exposure!.likelihood]}</td>
                     <td className="py-1.5 pr-3">{f.caseLabel}</td>
@@ -199,13 +247,19 @@ export default async function ChannelPage({
                         aria-current={current ? 'true' : undefined}
                         className={cn(
                           'flex items-start gap-2 rounded-sm border px-2 py-1.5 text-sm',
-                          current ? 'border-accent bg-accent-soft' : 'border-transparent hover:border-line',
+                          current
+                            ? 'border-accent bg-accent-soft'
+                            : 'border-transparent hover:border-line',
                         )}
                       >
                         <VerdictBadge verdict={f.verdict} />
                         <span className="min-w-0">
                           {f.caseLabel}
-                          {f.exposure && <span className="block font-mono text-xs text-muted">from {f.exposure.hazardLabel}</span>}
+                          {f.exposure && (
+                            <span className="block font-mono text-xs text-muted">
+                              from {f.exposure.hazardLabel}
+                            </span>
+                          )}
                         </span>
                       </Link>
                     </li>
@@ -220,8 +274,13 @@ export default async function ChannelPage({
                   <span className="text-muted"> from {selected.finding.exposure.hazardLabel}</span>
                 )}
               </h3>
-              {selected.finding.exposure && <p className="text-sm">{selected.finding.exposure.reason}</p>}
-              {guard && selected.finding.stress && selected.finding.input && selected.finding.sourcePeakCurrent !== null ? (
+              {selected.finding.exposure && (
+                <p className="text-sm">{selected.finding.exposure.reason}</p>
+              )}
+              {guard &&
+              selected.finding.stress &&
+              selected.finding.input &&
+              selected.finding.sourcePeakCurrent !== null ? (
                 <CaseCalculations
                   guard={guard}
                   result={{
@@ -263,7 +322,10 @@ export default async function ChannelPage({
                 </div>
               )}
               {waveform && waveform.t.length <= 1 && (
-                <p className="text-sm text-muted">A steady DC fault has no waveform to plot: the figures above hold for as long as it lasts.</p>
+                <p className="text-sm text-muted">
+                  A steady DC fault has no waveform to plot: the figures above hold for as long as
+                  it lasts.
+                </p>
               )}
             </div>
           </div>
@@ -283,7 +345,9 @@ export default async function ChannelPage({
               .filter((c) => c.finding.stress)
               .map((c) => ({
                 key: c.finding.key,
-                label: c.finding.exposure ? `${c.finding.caseLabel} from ${c.finding.exposure.hazardLabel}` : c.finding.caseLabel,
+                label: c.finding.exposure
+                  ? `${c.finding.caseLabel} from ${c.finding.exposure.hazardLabel}`
+                  : c.finding.caseLabel,
                 stress: c.finding.stress!,
                 appliedTo: c.finding.appliedTo,
                 verdict: c.finding.verdict,

@@ -12,7 +12,11 @@ import { getSignedInUser } from '@/lib/data/membership';
 
 export const metadata: Metadata = { title: 'Strip verdicts' };
 
-export default async function StripOverlayPage({ params }: { params: Promise<{ projectId: string; stripId: string }> }) {
+export default async function StripOverlayPage({
+  params,
+}: {
+  params: Promise<{ projectId: string; stripId: string }>;
+}) {
   const { projectId: rawProject, stripId: rawStrip } = await params;
   const projectId = Number(rawProject);
   const stripId = Number(rawStrip);
@@ -30,24 +34,35 @@ export default async function StripOverlayPage({ params }: { params: Promise<{ p
         <Link href={base} className="underline-offset-2 hover:underline">
           Findings
         </Link>{' '}
-        / strip <span className="font-mono text-ink">{overlay.cabinetTag} / {strip.tag}</span>
+        / strip{' '}
+        <span className="font-mono text-ink">
+          {overlay.cabinetTag} / {strip.tag}
+        </span>
       </nav>
       <h2 className="text-2xl font-semibold">
         Strip <span className="font-mono">{strip.tag}</span>
         {strip.name && <span className="ml-2 text-base font-normal text-muted">{strip.name}</span>}
       </h2>
       <Caution />
-      {!overlay.run && <p className="text-sm text-muted">No audit run yet: the strip is drawn without verdicts.</p>}
+      {!overlay.run && (
+        <p className="text-sm text-muted">No audit run yet: the strip is drawn without verdicts.</p>
+      )}
       {overlay.run?.stale && (
         <p role="status" className="rounded-sm border border-caution bg-caution-soft p-3 text-sm">
-          The schedule changed after audit run #{overlay.run.id}: the verdicts below are that run&apos;s.
+          The schedule changed after audit run #{overlay.run.id}: the verdicts below are that
+          run&apos;s.
         </p>
       )}
 
       <Panel className="min-w-0">
         <PanelTitle>Verdicts and exposures</PanelTitle>
         <div className="overflow-x-auto">
-          <StripDrawing strips={[strip]} terminals={overlay.terminals} exposures={overlay.exposures} verdicts={overlay.verdicts} />
+          <StripDrawing
+            strips={[strip]}
+            terminals={overlay.terminals}
+            exposures={overlay.exposures}
+            verdicts={overlay.verdicts}
+          />
         </div>
       </Panel>
 
@@ -62,7 +77,10 @@ export default async function StripOverlayPage({ params }: { params: Promise<{ p
                 <li key={c.channelId} className="py-2">
                   <div className="flex items-center gap-2">
                     <VerdictBadge verdict={c.verdict} />
-                    <Link href={`${base}/channels/${c.channelId}`} className="font-mono font-semibold underline-offset-2 hover:underline">
+                    <Link
+                      href={`${base}/channels/${c.channelId}`}
+                      className="font-mono font-semibold underline-offset-2 hover:underline"
+                    >
                       {c.tag}
                     </Link>
                   </div>
