@@ -3,6 +3,7 @@
  * carries the server's body ({ error, fieldErrors, current, conflicts }) so screens can put
  * each message where it belongs.
  */
+import type { LikelihoodClass, Mechanism } from '@/lib/exposure/types';
 import type {
   Cabinet,
   ChannelRow,
@@ -164,6 +165,8 @@ export function projectApi(projectId: number) {
         method: 'POST',
         body: importForm(file, 'commit', mapping),
       }),
+    /** The current exposure map of the whole project (computed, not stored). */
+    exposures: () => request<ExposureMapView>(`${base}/exposures`),
     exportUrl: (cabinetId: number, format: 'csv' | 'xlsx') => `${base}/cabinets/${cabinetId}/export?format=${format}`,
   };
 }
@@ -176,6 +179,15 @@ function importForm(file: File, mode: 'preview' | 'commit', mapping?: Record<str
   return form;
 }
 
+/** GET /exposures: lib/exposure's map; terminal ids arrive as strings. */
+export interface ExposureMapView {
+  targets: {
+    terminalId: string;
+    label: string;
+    exposures: { hazardTerminalId: string; targetTerminalId: string; mechanism: Mechanism; likelihood: LikelihoodClass; reason: string }[];
+  }[];
+}
+
 export type ProjectApi = ReturnType<typeof projectApi>;
 
 /** Query keys in one place so writes invalidate exactly what they touch. */
@@ -186,4 +198,5 @@ export const keys = {
     ['projects', projectId, 'cabinets', cabinetId, 'terminals'] as const,
   channels: (projectId: number, cabinetId?: number) => ['projects', projectId, 'channels', cabinetId ?? 'all'] as const,
   recipes: (projectId: number) => ['projects', projectId, 'guard-recipes'] as const,
+  exposures: (projectId: number) => ['projects', projectId, 'exposures'] as const,
 };

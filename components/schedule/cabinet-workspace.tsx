@@ -4,7 +4,7 @@ import { useQuery } from '@tanstack/react-query';
 import { useMemo, useState } from 'react';
 import { Button, buttonVariants } from '@/components/ui/button';
 import { Panel, PanelTitle } from '@/components/ui/panel';
-import { StripDrawing } from '@/components/strip/strip-drawing';
+import { StripDrawing, type DrawnExposure } from '@/components/strip/strip-drawing';
 import { TerminalDetail } from '@/components/strip/terminal-detail';
 import { cn } from '@/lib/utils';
 import { keys, projectApi } from './api';
@@ -47,12 +47,27 @@ export function CabinetWorkspace({
     queryFn: () => api.listChannels(cabinet.id),
   });
   const [selectedId, setSelectedId] = useState<number | null>(null);
+  const [overlay, setOverlay] = useState<'off' | 'likely' | 'all'>('off');
+  const exposureMap = useQuery({
+    queryKey: [...keys.exposures(projectId), terminals.dataUpdatedAt],
+    queryFn: () => api.exposures(),
+    enabled: overlay !== 'off',
+  });
   const [dialog, setDialog] = useState<Dialog>(null);
 
   const stripList = useMemo(() => strips.data?.items ?? [], [strips.data]);
   const terminalList = useMemo(() => terminals.data?.items ?? [], [terminals.data]);
   const channelList = useMemo(() => channels.data?.items ?? [], [channels.data]);
   const selected = terminalList.find((t) => t.id === selectedId);
+  const exposures = useMemo<DrawnExposure[]>(() => {
+    if (overlay === 'off' || !exposureMap.data) return [];
+    const here = new Set(terminalList.map((t) => t.id));
+    return exposureMap.data.targets
+      .flatMap((t) => t.exposures)
+      .filter((e) => overlay === 'all' || e.likelihood === 'likely')
+      .map((e) => ({ from: Number(e.hazardTerminalId), to: Number(e.targetTerminalId), mechanism: e.mechanism, likelihood: e.likelihood }))
+      .filter((e) => here.has(e.from) && here.has(e.to));
+  }, [overlay, exposureMap.data, terminalList]);
   const neighbours = selected
     ? terminalList
         .filter((t) => t.stripId === selected.stripId && t.id !== selected.id && Math.abs(t.position - selected.position) <= 1)
@@ -135,8 +150,37 @@ export function CabinetWorkspace({
             Loading the strips…
           </p>
         ) : (
-          <StripDrawing strips={stripList} terminals={terminalList} selectedId={selectedId} onSelect={setSelectedId} />
+          <StripDrawing
+            strips={stripList}
+            terminals={terminalList}
+            exposures={exposures}
+            selectedId={selectedId}
+            onSelect={setSelectedId}
+          />
         )}
+        <div className="mt-2 flex flex-wrap items-center gap-2 text-xs">
+          <label className="flex items-center gap-1">
+            Exposure paths:
+            <select
+              value={overlay}
+              onChange={(e) => setOverlay(e.target.value as typeof overlay)}
+              className="h-8 rounded-sm border border-line bg-panel px-1 text-xs"
+            >
+              <option value="off">hidden</option>
+              <option value="likely">likely only</option>
+              <option value="all">all</option>
+            </select>
+          </label>
+          {overlay !== 'off' ? (
+            <span className="text-muted" role="status">
+              {exposureMap.isFetching
+                ? 'mapping exposures…'
+                : exposureMap.error
+                  ? `could not map exposures: ${exposureMap.error.message}`
+                  : `${exposures.length} paths from a hazard to a channel terminal (solid: likely, dashed: plausible, dotted: remote); hover a line for its mechanism`}
+            </span>
+          ) : null}
+        </div>
         {canWrite && stripList.length > 0 ? (
           <div className="mt-2 flex flex-wrap gap-1 text-xs">
             <span className="text-muted">Edit strip:</span>

@@ -4,15 +4,15 @@ import { useMemo, useState, type KeyboardEvent } from 'react';
 import { ClassGlyph } from './class-glyph';
 import type { Strip, TerminalRow } from '@/components/schedule/types';
 import type { Verdict } from '@/lib/stress/types';
-import type { LikelihoodClass } from '@/lib/exposure/types';
-import { CIRCUIT_CLASSES, type ExposureMechanism } from '@/models/enums';
+import type { LikelihoodClass, Mechanism } from '@/lib/exposure/types';
+import { CIRCUIT_CLASSES } from '@/models/enums';
 import { cn } from '@/lib/utils';
 
 /** A path by which a hazard terminal can reach a channel terminal (drawn by the audit overlay). */
 export interface DrawnExposure {
   from: number;
   to: number;
-  mechanism: ExposureMechanism;
+  mechanism: Mechanism;
   likelihood: LikelihoodClass;
 }
 
@@ -201,6 +201,14 @@ export function StripDrawing({
           </svg>
           bridge
         </span>
+        {exposures.length > 0 ? (
+          <span className="flex items-center gap-1">
+            <svg aria-hidden viewBox="0 0 28 10" className="h-2.5 w-7">
+              <line x1={2} x2={26} y1={5} y2={5} className="stroke-danger" strokeWidth={2.5} />
+            </svg>
+            exposure path
+          </span>
+        ) : null}
         {usedVerdicts.map((v) => (
           <span key={v} className="flex items-center gap-1">
             <span className={cn('inline-block rounded-[2px] px-1 font-mono text-[10px] text-accent-ink', `bg-verdict-${v}`)}>
@@ -439,10 +447,15 @@ export function StripDrawing({
             const b = centres.get(e.to);
             if (!a || !b) return null;
             const sameRow = Math.abs(a.y - b.y) < 1;
+            const sameColumn = Math.abs(a.x - b.x) < 1;
             const lift = sameRow ? Math.min(TILE_H * 0.9, 14 + Math.abs(a.x - b.x) / 4) : 0;
+            // Stacked levels: run along the tile's right edge so the printed figures stay readable.
+            const edge = a.x + PITCH / 2 - 6;
             const d = sameRow
               ? `M${a.x} ${a.y - 16} Q${(a.x + b.x) / 2} ${a.y - 16 - lift} ${b.x} ${b.y - 16}`
-              : `M${a.x} ${a.y} L${b.x} ${b.y}`;
+              : sameColumn
+                ? `M${edge} ${a.y} L${edge} ${b.y}`
+                : `M${a.x} ${a.y} L${b.x} ${b.y}`;
             return (
               <path
                 key={`${e.from}-${e.to}-${e.mechanism}-${i}`}
