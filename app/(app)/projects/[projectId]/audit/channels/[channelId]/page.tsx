@@ -9,6 +9,7 @@ import { WaveformPlot } from '@/components/report/waveform-plot';
 import { StripDrawing } from '@/components/strip/strip-drawing';
 import { Caution } from '@/components/ui/caution';
 import { Panel, PanelTitle } from '@/components/ui/panel';
+import { can } from '@/lib/auth/permissions';
 import { getChannelDetail } from '@/lib/data/channel-detail';
 import { getSignedInUser } from '@/lib/data/membership';
 import { formatMargin } from '@/lib/report/format';
@@ -103,10 +104,16 @@ export default async function ChannelPage({
           <p className="font-medium">This project has not been audited yet.</p>
           <p className="mt-1 text-sm text-muted">
             The stress on this channel is worked out by an audit run.{' '}
-            <Link className="underline" href={base}>
-              Go to the findings
-            </Link>{' '}
-            to run one.
+            {can(detail.standing, 'audit:run') ? (
+              <>
+                <Link className="underline" href={base}>
+                  Go to the findings
+                </Link>{' '}
+                to run one.
+              </>
+            ) : (
+              'A controls engineer runs it.'
+            )}
           </p>
         </Panel>
       )}
