@@ -168,7 +168,10 @@ export function CaseCalculations({
                             {e.elementId}
                             <span className="block text-xs font-normal text-muted">{e.kind}</span>
                           </th>
-                          <td rowSpan={rows.length} className="py-1.5 pr-3 font-mono">
+                          <td
+                            rowSpan={rows.length}
+                            className="py-1.5 pr-3 font-mono whitespace-nowrap"
+                          >
                             {formatEng(e.peakVoltage, 'V')}
                             <span className="block">{formatEng(e.peakCurrent, 'A')}</span>
                           </td>
@@ -197,7 +200,7 @@ export function CaseCalculations({
                 <th scope="row" className="py-1.5 pr-3 text-left font-semibold">
                   Protected input
                 </th>
-                <td className="py-1.5 pr-3 font-mono">
+                <td className="py-1.5 pr-3 font-mono whitespace-nowrap">
                   {formatEng(result.input.peakVoltage, 'V')}
                   <span className="block">{formatEng(result.input.peakCurrent, 'A')}</span>
                 </td>
@@ -213,7 +216,9 @@ export function CaseCalculations({
                   <th scope="row" className="py-1.5 pr-3 text-left font-semibold">
                     {r.rail === 'positive' ? 'Positive rail' : 'Negative rail'}
                   </th>
-                  <td className="py-1.5 pr-3 font-mono">{formatEng(r.injectedCurrent, 'A')}</td>
+                  <td className="py-1.5 pr-3 font-mono whitespace-nowrap">
+                    {formatEng(r.injectedCurrent, 'A')}
+                  </td>
                   <td colSpan={5} className="py-1.5 pr-3 text-sm">
                     injected; minimum load{' '}
                     {r.minLoad === null ? 'not given' : formatEng(r.minLoad, 'A')}

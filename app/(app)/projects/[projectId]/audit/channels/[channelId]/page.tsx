@@ -13,6 +13,7 @@ import { can } from '@/lib/auth/permissions';
 import { getChannelDetail } from '@/lib/data/channel-detail';
 import { getSignedInUser } from '@/lib/data/membership';
 import { formatMargin } from '@/lib/report/format';
+import { innerNodeTraces } from '@/lib/report/node-traces';
 import { MECHANISM_LABEL, LIKELIHOOD_LABEL, ROUTE_LABEL } from '@/lib/report/vocabulary';
 import { cn } from '@/lib/utils';
 
@@ -57,7 +58,14 @@ export default async function ChannelPage({
   const worstFinding = ordered[0]?.finding ?? null;
   const exposed = ordered.filter((c) => c.finding.exposure);
   const waveform = selected?.waveformKey ? detail.waveforms[selected.waveformKey] : null;
-  const voltageTraces = waveform ? waveform.traces.filter((t) => t.unit === 'V') : [];
+  // Source and field terminal, each inner node (Ohm's law on the engine's series currents), the input.
+  const voltageTraces = waveform
+    ? [
+        ...waveform.traces.filter((t) => t.unit === 'V' && t.name !== 'input'),
+        ...(guard ? innerNodeTraces(guard, waveform) : []),
+        ...waveform.traces.filter((t) => t.name === 'input'),
+      ]
+    : [];
   const currentTraces = waveform ? waveform.traces.filter((t) => t.unit === 'A') : [];
   const caseHref = (key: string) =>
     `${base}/channels/${channelId}?case=${encodeURIComponent(key)}#case`;
