@@ -356,7 +356,14 @@ export async function listFindings(
   const where: WhereOptions = { auditRunId: run.id };
   if (filters.verdict?.length) Object.assign(where, { verdict: { [Op.in]: filters.verdict } });
   if (filters.kind?.length) Object.assign(where, { kind: { [Op.in]: filters.kind } });
-  if (filters.mechanism?.length) Object.assign(where, { mechanism: { [Op.in]: filters.mechanism } });
+  if (filters.mechanism?.length) {
+    // Project-wide surge and ESD findings have no exposure mechanism: 'transient' selects them.
+    const named = filters.mechanism.filter((m) => m !== 'transient');
+    const either: WhereOptions[] = [];
+    if (named.length) either.push({ mechanism: { [Op.in]: named } });
+    if (named.length < filters.mechanism.length) either.push({ mechanism: null, kind: 'stress' });
+    Object.assign(where, { [Op.or]: either });
+  }
   if (filters.caseId?.length) Object.assign(where, { stressCase: { [Op.in]: filters.caseId } });
   if (filters.channelId) Object.assign(where, { channelId: filters.channelId });
   const rows = await models.Finding.findAll({ where });

@@ -91,6 +91,14 @@ describe('audit runs through the API', () => {
     expect(body.items.every((f: { channelTag: string | null; kind: string }) => f.kind === 'stress' && f.channelTag)).toBe(true);
   });
 
+  it('the transient filter selects the project-wide surge and ESD findings', async () => {
+    session.userId = userId.reviewer;
+    const res = await findings.GET(url(`/audits/${firstRun}/findings?mechanism=transient&pageSize=2000`), ctx({ runId: String(firstRun) }));
+    const body = await res.json();
+    expect(body.total).toBeGreaterThan(0);
+    expect(body.items.every((f: { caseKind: string; mechanism: string }) => ['surge', 'esd'].includes(f.caseKind) && f.mechanism === 'transient')).toBe(true);
+  });
+
   it('a bad filter gets 422 naming it; an unknown run 404', async () => {
     session.userId = userId.reviewer;
     const bad = await findings.GET(url(`/audits/${firstRun}/findings?verdict=broken`), ctx({ runId: String(firstRun) }));
