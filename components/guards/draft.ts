@@ -3,7 +3,13 @@
  * ("4k99", "0.25W"), converted to SI numbers only when drawn or saved. Pure.
  */
 import { EngParseError, formatEng, parseEng } from '@/lib/units';
-import type { Guard, GuardElement, ProtectedInput, SeriesElement, ShuntElement } from '@/lib/stress/types';
+import type {
+  Guard,
+  GuardElement,
+  ProtectedInput,
+  SeriesElement,
+  ShuntElement,
+} from '@/lib/stress/types';
 import { INPUT_FIGURES, KIND_BY_NAME, type FigureSpec } from './elements';
 
 export interface DraftElement {
@@ -41,7 +47,10 @@ export function elementToDraft(element: GuardElement): DraftElement {
 export function guardToDraft(guard: Guard): GuardDraft {
   const input = guard.input as unknown as Record<string, unknown>;
   return {
-    stages: guard.stages.map((s) => ({ series: elementToDraft(s.series), shunts: s.shunts.map(elementToDraft) })),
+    stages: guard.stages.map((s) => ({
+      series: elementToDraft(s.series),
+      shunts: s.shunts.map(elementToDraft),
+    })),
     input: Object.fromEntries(INPUT_FIGURES.map((f) => [f.key, figureText(input[f.key], f)])),
     internalClamps: guard.input.internalClamps === true,
   };
@@ -75,7 +84,12 @@ export type DraftErrors = Record<string, string>;
 export const figurePath = (stage: number, slot: 'series' | number, key: string) =>
   slot === 'series' ? `stages.${stage}.series.${key}` : `stages.${stage}.shunts.${slot}.${key}`;
 
-function readFigure(text: string | undefined, spec: FigureSpec, path: string, errors: DraftErrors): number | undefined {
+function readFigure(
+  text: string | undefined,
+  spec: FigureSpec,
+  path: string,
+  errors: DraftErrors,
+): number | undefined {
   const raw = (text ?? '').trim();
   if (raw === '') {
     if (spec.required) errors[path] = `${spec.label} is required (${spec.unit}).`;
@@ -89,7 +103,11 @@ function readFigure(text: string | undefined, spec: FigureSpec, path: string, er
   }
 }
 
-function readElement(el: DraftElement, pathOf: (key: string) => string, errors: DraftErrors): GuardElement {
+function readElement(
+  el: DraftElement,
+  pathOf: (key: string) => string,
+  errors: DraftErrors,
+): GuardElement {
   const spec = KIND_BY_NAME.get(el.kind)!;
   const out: Record<string, unknown> = { kind: el.kind, id: el.id.trim() };
   if (!el.id.trim()) errors[pathOf('id')] = 'Each element needs an id (e.g. R1).';
@@ -107,12 +125,17 @@ export function draftToGuard(draft: GuardDraft): { guard: Guard; errors: DraftEr
   const ids = new Map<string, string>();
   const checkId = (id: string, path: string) => {
     const other = ids.get(id);
-    if (id && other) errors[path] = `Id ${id} is already used (${other}); ids must be unique in a guard.`;
+    if (id && other)
+      errors[path] = `Id ${id} is already used (${other}); ids must be unique in a guard.`;
     else ids.set(id, path);
   };
   const stages = draft.stages.map((stage, i) => {
     checkId(stage.series.id.trim(), figurePath(i, 'series', 'id'));
-    const series = readElement(stage.series, (k) => figurePath(i, 'series', k), errors) as SeriesElement;
+    const series = readElement(
+      stage.series,
+      (k) => figurePath(i, 'series', k),
+      errors,
+    ) as SeriesElement;
     const shunts = stage.shunts.map((sh, j) => {
       checkId(sh.id.trim(), figurePath(i, j, 'id'));
       return readElement(sh, (k) => figurePath(i, j, k), errors) as ShuntElement;

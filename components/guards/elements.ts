@@ -24,7 +24,13 @@ export interface KindSpec {
   bidirectional?: boolean;
 }
 
-const f = (key: string, label: string, unit: UnitSymbol, required: boolean, hint: string): FigureSpec => ({
+const f = (
+  key: string,
+  label: string,
+  unit: UnitSymbol,
+  required: boolean,
+  hint: string,
+): FigureSpec => ({
   key,
   label,
   unit,
@@ -137,7 +143,10 @@ export const KIND_SPECS: KindSpec[] = [
     role: 'shunt',
     name: 'Capacitor to ground',
     prefix: 'C',
-    figures: [f('capacitance', 'Capacitance', 'F', true, 'e.g. 100n, 10n'), f('voltageRating', 'Voltage rating', 'V', false, 'e.g. 50V')],
+    figures: [
+      f('capacitance', 'Capacitance', 'F', true, 'e.g. 100n, 10n'),
+      f('voltageRating', 'Voltage rating', 'V', false, 'e.g. 50V'),
+    ],
   },
   {
     kind: 'shuntResistor',
@@ -168,7 +177,9 @@ export const INPUT_FIGURES: FigureSpec[] = [
 ];
 
 /** The figure that best names an element in a drawing (its main value). */
-export function mainFigure(element: SeriesElement | ShuntElement): { key: string; unit: UnitSymbol } | null {
+export function mainFigure(
+  element: SeriesElement | ShuntElement,
+): { key: string; unit: UnitSymbol } | null {
   const spec = KIND_BY_NAME.get(element.kind);
   const first = spec?.figures[0];
   if (element.kind === 'tvs') return { key: 'standoffVoltage', unit: 'V' };

@@ -30,7 +30,8 @@ import {
 } from './draft';
 import { GuardSchematic } from './guard-schematic';
 
-const selectClass = 'h-9 rounded-sm border border-line bg-panel px-2 text-sm text-ink disabled:opacity-70';
+const selectClass =
+  'h-9 rounded-sm border border-line bg-panel px-2 text-sm text-ink disabled:opacity-70';
 
 /**
  * Build a protection network stage by stage — each stage a series element and the shunt
@@ -51,7 +52,9 @@ export function GuardBuilder({
   const api = projectApi(projectId);
   const [name, setName] = useState(recipe?.name ?? '');
   const [description, setDescription] = useState(recipe?.description ?? '');
-  const [draft, setDraft] = useState<GuardDraft>(() => (recipe ? guardToDraft(recipe.guard) : emptyDraft()));
+  const [draft, setDraft] = useState<GuardDraft>(() =>
+    recipe ? guardToDraft(recipe.guard) : emptyDraft(),
+  );
   const [version, setVersion] = useState(recipe?.version ?? 0);
   const [fromPreset, setFromPreset] = useState(recipe?.isPreset ?? false);
   const [attempted, setAttempted] = useState(false);
@@ -64,7 +67,10 @@ export function GuardBuilder({
   const { guard, errors } = useMemo(() => draftToGuard(draft), [draft]);
   // Missing required figures are shown once a save was tried; unreadable text at once.
   const shownErrors = useMemo(
-    () => (attempted ? errors : Object.fromEntries(Object.entries(errors).filter(([, m]) => !m.includes('required')))),
+    () =>
+      attempted
+        ? errors
+        : Object.fromEntries(Object.entries(errors).filter(([, m]) => !m.includes('required'))),
     [errors, attempted],
   );
   const nameError = attempted && !name.trim() ? 'Name is required.' : undefined;
@@ -84,7 +90,10 @@ export function GuardBuilder({
     const block = TERMINAL_BLOCK_PRESETS.find((p) => p.key === key);
     if (!block) return;
     update((d) => {
-      const stages = block.stages.map((s) => ({ series: elementToDraft(s.series), shunts: s.shunts.map(elementToDraft) }));
+      const stages = block.stages.map((s) => ({
+        series: elementToDraft(s.series),
+        shunts: s.shunts.map(elementToDraft),
+      }));
       // Keep ids unique: rename a block element whose id the guard already uses.
       const taken = new Set(d.stages.flatMap((s) => [s.series.id, ...s.shunts.map((e) => e.id)]));
       for (const el of stages.flatMap((s) => [s.series, ...s.shunts])) {
@@ -104,7 +113,9 @@ export function GuardBuilder({
     setFailure(null);
     setNotice(null);
     if (Object.keys(errors).length > 0 || !name.trim()) {
-      setFailure(`${Object.keys(errors).length + (name.trim() ? 0 : 1)} field(s) need attention; nothing was saved.`);
+      setFailure(
+        `${Object.keys(errors).length + (name.trim() ? 0 : 1)} field(s) need attention; nothing was saved.`,
+      );
       return;
     }
     const body = { name: name.trim(), description: description.trim() || null, guard };
@@ -131,7 +142,9 @@ export function GuardBuilder({
       if (error instanceof ApiError && error.status === 409 && error.current) {
         setConflict(error.current as GuardRecipe);
       } else if (error instanceof ApiError) {
-        const listed = Object.entries(error.fieldErrors).flatMap(([k, m]) => m.map((x) => (k === 'guard' || k === '_' ? x : `${k}: ${x}`)));
+        const listed = Object.entries(error.fieldErrors).flatMap(([k, m]) =>
+          m.map((x) => (k === 'guard' || k === '_' ? x : `${k}: ${x}`)),
+        );
         setFailure(`Not saved: ${listed.length ? listed.join(' ') : error.message}`);
       } else {
         setFailure(`Not saved: ${String(error)}`);
@@ -155,7 +168,11 @@ export function GuardBuilder({
   return (
     <div className="space-y-6">
       <Panel>
-        <PanelTitle aside={<span className="text-xs text-muted">field terminal → protected input</span>}>Schematic</PanelTitle>
+        <PanelTitle
+          aside={<span className="text-xs text-muted">field terminal → protected input</span>}
+        >
+          Schematic
+        </PanelTitle>
         <GuardSchematic guard={guard} title={name || 'New guard'} />
         {fromPreset ? (
           <p className="mt-2 text-sm text-caution" data-testid="typical-caution">
@@ -203,7 +220,11 @@ export function GuardBuilder({
           <div className="mt-4 flex flex-wrap items-end gap-3 rounded-sm border border-dashed border-line p-3">
             <label className="flex flex-col text-xs text-muted">
               Start from a preset
-              <select className={selectClass} value="" onChange={(e) => applyPreset(e.target.value)}>
+              <select
+                className={selectClass}
+                value=""
+                onChange={(e) => applyPreset(e.target.value)}
+              >
                 <option value="">choose…</option>
                 {INPUT_PRESETS.map((p) => (
                   <option key={p.key} value={p.key}>
@@ -214,7 +235,11 @@ export function GuardBuilder({
             </label>
             <label className="flex flex-col text-xs text-muted">
               Put a protection terminal block in front
-              <select className={selectClass} value="" onChange={(e) => addTerminalBlock(e.target.value)}>
+              <select
+                className={selectClass}
+                value=""
+                onChange={(e) => addTerminalBlock(e.target.value)}
+              >
                 <option value="">choose…</option>
                 {TERMINAL_BLOCK_PRESETS.map((p) => (
                   <option key={p.key} value={p.key}>
@@ -236,7 +261,13 @@ export function GuardBuilder({
                 aside={
                   canWrite ? (
                     <span className="flex gap-1">
-                      <Button size="sm" variant="ghost" disabled={i === 0} onClick={() => update((d) => swap(d, i, i - 1))} aria-label={`Move stage ${i + 1} towards the field`}>
+                      <Button
+                        size="sm"
+                        variant="ghost"
+                        disabled={i === 0}
+                        onClick={() => update((d) => swap(d, i, i - 1))}
+                        aria-label={`Move stage ${i + 1} towards the field`}
+                      >
                         ↑
                       </Button>
                       <Button
@@ -248,7 +279,13 @@ export function GuardBuilder({
                       >
                         ↓
                       </Button>
-                      <Button size="sm" variant="ghost" onClick={() => update((d) => ({ ...d, stages: d.stages.filter((_, k) => k !== i) }))}>
+                      <Button
+                        size="sm"
+                        variant="ghost"
+                        onClick={() =>
+                          update((d) => ({ ...d, stages: d.stages.filter((_, k) => k !== i) }))
+                        }
+                      >
                         Remove stage
                       </Button>
                     </span>
@@ -277,9 +314,18 @@ export function GuardBuilder({
                     pathOf={(k) => figurePath(i, j, k)}
                     errors={shownErrors}
                     readOnly={readOnly}
-                    onKind={(kind) => update((d) => ((d.stages[i].shunts[j] = newElement(kind, d)), d))}
+                    onKind={(kind) =>
+                      update((d) => ((d.stages[i].shunts[j] = newElement(kind, d)), d))
+                    }
                     onChange={(el) => update((d) => ((d.stages[i].shunts[j] = el), d))}
-                    onRemove={() => update((d) => ((d.stages[i].shunts = d.stages[i].shunts.filter((_, k) => k !== j)), d))}
+                    onRemove={() =>
+                      update(
+                        (d) => (
+                          (d.stages[i].shunts = d.stages[i].shunts.filter((_, k) => k !== j)),
+                          d
+                        ),
+                      )
+                    }
                   />
                 ))}
                 {canWrite ? (
@@ -290,7 +336,14 @@ export function GuardBuilder({
                       value=""
                       onChange={(e) =>
                         e.target.value &&
-                        update((d) => (d.stages[i].shunts.push(newElement(e.target.value as DraftElement['kind'], d)), d))
+                        update(
+                          (d) => (
+                            d.stages[i].shunts.push(
+                              newElement(e.target.value as DraftElement['kind'], d),
+                            ),
+                            d
+                          ),
+                        )
                       }
                     >
                       <option value="">choose…</option>
@@ -315,7 +368,13 @@ export function GuardBuilder({
             value=""
             onChange={(e) =>
               e.target.value &&
-              update((d) => ({ ...d, stages: [...d.stages, { series: newElement(e.target.value as DraftElement['kind'], d), shunts: [] }] }))
+              update((d) => ({
+                ...d,
+                stages: [
+                  ...d.stages,
+                  { series: newElement(e.target.value as DraftElement['kind'], d), shunts: [] },
+                ],
+              }))
             }
           >
             <option value="">choose…</option>
@@ -350,7 +409,10 @@ export function GuardBuilder({
       </Panel>
 
       {failure ? (
-        <p role="alert" className="rounded-sm border border-danger bg-danger-soft p-2 text-sm text-danger">
+        <p
+          role="alert"
+          className="rounded-sm border border-danger bg-danger-soft p-2 text-sm text-danger"
+        >
           {failure}
         </p>
       ) : null}
@@ -374,12 +436,17 @@ export function GuardBuilder({
         <p className="text-sm text-muted">Your role sees guard recipes read-only.</p>
       )}
 
-      <Modal open={conflict !== null} title="Someone else saved this recipe first" onClose={() => undefined} dismissable={false}>
+      <Modal
+        open={conflict !== null}
+        title="Someone else saved this recipe first"
+        onClose={() => undefined}
+        dismissable={false}
+      >
         {conflict ? (
           <div className="space-y-3 text-sm">
             <p role="alert">
-              “{conflict.name}” is now at version {conflict.version} (you started from version {version}). Your edits are
-              still here and not saved.
+              “{conflict.name}” is now at version {conflict.version} (you started from version{' '}
+              {version}). Your edits are still here and not saved.
             </p>
             <GuardSchematic guard={conflict.guard} title="Their version" />
             <div className="flex justify-end gap-2">
@@ -449,7 +516,12 @@ function ElementEditor({
       <div className="mb-2 flex flex-wrap items-end gap-3">
         <label className="flex flex-col text-xs text-muted">
           Kind
-          <select className={selectClass} value={element.kind} disabled={readOnly} onChange={(e) => onKind(e.target.value as DraftElement['kind'])}>
+          <select
+            className={selectClass}
+            value={element.kind}
+            disabled={readOnly}
+            onChange={(e) => onKind(e.target.value as DraftElement['kind'])}
+          >
             {kinds.map((k) => (
               <option key={k} value={k}>
                 {KIND_BY_NAME.get(k)!.name}
@@ -497,7 +569,9 @@ function ElementEditor({
         pathOf={pathOf}
         errors={errors}
         readOnly={readOnly}
-        onChange={(key, value) => onChange({ ...element, figures: { ...element.figures, [key]: value } })}
+        onChange={(key, value) =>
+          onChange({ ...element, figures: { ...element.figures, [key]: value } })
+        }
       />
     </fieldset>
   );

@@ -24,25 +24,67 @@ function stageWidth(stage: GuardStage) {
 }
 
 /** A series element drawn on the main line between x and x + SERIES_W (symbols after IEC 60617). */
-function SeriesSymbol({ element, x, marked }: { element: SeriesElement; x: number; marked: boolean }) {
+function SeriesSymbol({
+  element,
+  x,
+  marked,
+}: {
+  element: SeriesElement;
+  x: number;
+  marked: boolean;
+}) {
   const cx = x + SERIES_W / 2;
   const stroke = marked ? 'stroke-accent' : 'stroke-ink';
   const body = (() => {
     switch (element.kind) {
       case 'resistor':
-        return <rect x={cx - 22} y={LINE_Y - 8} width={44} height={16} className={`fill-panel ${stroke}`} strokeWidth={2} />;
+        return (
+          <rect
+            x={cx - 22}
+            y={LINE_Y - 8}
+            width={44}
+            height={16}
+            className={`fill-panel ${stroke}`}
+            strokeWidth={2}
+          />
+        );
       case 'ptc':
         return (
           <g>
-            <rect x={cx - 22} y={LINE_Y - 8} width={44} height={16} className={`fill-panel ${stroke}`} strokeWidth={2} />
-            <path d={`M${cx - 26} ${LINE_Y + 14} L${cx + 18} ${LINE_Y - 14} h8`} className={`fill-none ${stroke}`} strokeWidth={1.5} />
+            <rect
+              x={cx - 22}
+              y={LINE_Y - 8}
+              width={44}
+              height={16}
+              className={`fill-panel ${stroke}`}
+              strokeWidth={2}
+            />
+            <path
+              d={`M${cx - 26} ${LINE_Y + 14} L${cx + 18} ${LINE_Y - 14} h8`}
+              className={`fill-none ${stroke}`}
+              strokeWidth={1.5}
+            />
           </g>
         );
       case 'fuse':
         return (
           <g>
-            <rect x={cx - 22} y={LINE_Y - 8} width={44} height={16} className={`fill-panel ${stroke}`} strokeWidth={2} />
-            <line x1={cx - 22} x2={cx + 22} y1={LINE_Y} y2={LINE_Y} className={stroke} strokeWidth={1.5} />
+            <rect
+              x={cx - 22}
+              y={LINE_Y - 8}
+              width={44}
+              height={16}
+              className={`fill-panel ${stroke}`}
+              strokeWidth={2}
+            />
+            <line
+              x1={cx - 22}
+              x2={cx + 22}
+              y1={LINE_Y}
+              y2={LINE_Y}
+              className={stroke}
+              strokeWidth={1.5}
+            />
           </g>
         );
       case 'wire':
@@ -58,9 +100,21 @@ function SeriesSymbol({ element, x, marked }: { element: SeriesElement; x: numbe
   return (
     <g>
       <line x1={x} x2={cx - 22} y1={LINE_Y} y2={LINE_Y} className="stroke-ink" strokeWidth={2} />
-      <line x1={cx + 22} x2={x + SERIES_W} y1={LINE_Y} y2={LINE_Y} className="stroke-ink" strokeWidth={2} />
+      <line
+        x1={cx + 22}
+        x2={x + SERIES_W}
+        y1={LINE_Y}
+        y2={LINE_Y}
+        className="stroke-ink"
+        strokeWidth={2}
+      />
       {body}
-      <text x={cx} y={LINE_Y - 16} textAnchor="middle" className="fill-ink font-mono text-[11px] font-semibold">
+      <text
+        x={cx}
+        y={LINE_Y - 16}
+        textAnchor="middle"
+        className="fill-ink font-mono text-[11px] font-semibold"
+      >
         {element.id}
       </text>
       <text x={cx} y={LINE_Y + 26} textAnchor="middle" className="fill-muted font-mono text-[10px]">
@@ -71,14 +125,34 @@ function SeriesSymbol({ element, x, marked }: { element: SeriesElement; x: numbe
 }
 
 /** A diode symbol pointing from (x, y1) towards y2 (cathode bar at the far end). */
-function Diode({ x, y, up, cls, zener }: { x: number; y: number; up: boolean; cls: string; zener?: boolean }) {
+function Diode({
+  x,
+  y,
+  up,
+  cls,
+  zener,
+}: {
+  x: number;
+  y: number;
+  up: boolean;
+  cls: string;
+  zener?: boolean;
+}) {
   const d = up ? -1 : 1;
   const bar = y + d * 7;
   return (
     <g>
-      <path d={`M${x - 8} ${y - d * 7} L${x + 8} ${y - d * 7} L${x} ${bar} Z`} className={`fill-panel ${cls}`} strokeWidth={1.75} />
+      <path
+        d={`M${x - 8} ${y - d * 7} L${x + 8} ${y - d * 7} L${x} ${bar} Z`}
+        className={`fill-panel ${cls}`}
+        strokeWidth={1.75}
+      />
       {zener ? (
-        <path d={`M${x - 11} ${bar + d * 3} L${x - 8} ${bar} L${x + 8} ${bar} L${x + 11} ${bar - d * 3}`} className={`fill-none ${cls}`} strokeWidth={1.75} />
+        <path
+          d={`M${x - 11} ${bar + d * 3} L${x - 8} ${bar} L${x + 8} ${bar} L${x + 11} ${bar - d * 3}`}
+          className={`fill-none ${cls}`}
+          strokeWidth={1.75}
+        />
       ) : (
         <line x1={x - 8} x2={x + 8} y1={bar} y2={bar} className={cls} strokeWidth={1.75} />
       )}
@@ -87,7 +161,15 @@ function Diode({ x, y, up, cls, zener }: { x: number; y: number; up: boolean; cl
 }
 
 /** A shunt element hanging from the node bus at x down to ground (or to the rails for the diode pair). */
-function ShuntSymbol({ element, x, marked }: { element: ShuntElement; x: number; marked: boolean }) {
+function ShuntSymbol({
+  element,
+  x,
+  marked,
+}: {
+  element: ShuntElement;
+  x: number;
+  marked: boolean;
+}) {
   const cls = marked ? 'stroke-accent' : 'stroke-ink';
   const mid = (LINE_Y + GROUND_Y) / 2 + 4;
   const label = (
@@ -100,7 +182,9 @@ function ShuntSymbol({ element, x, marked }: { element: ShuntElement; x: number;
       </text>
     </>
   );
-  const lead = (from: number, to: number) => <line x1={x} x2={x} y1={from} y2={to} className="stroke-ink" strokeWidth={2} />;
+  const lead = (from: number, to: number) => (
+    <line x1={x} x2={x} y1={from} y2={to} className="stroke-ink" strokeWidth={2} />
+  );
   const ground = (
     <g className="stroke-ink" strokeWidth={2}>
       <line x1={x - 12} x2={x + 12} y1={GROUND_Y} y2={GROUND_Y} />
@@ -116,12 +200,22 @@ function ShuntSymbol({ element, x, marked }: { element: ShuntElement; x: number;
           {/* to the positive rail above, from the negative rail below */}
           <line x1={x} x2={x} y1={LINE_Y} y2={LINE_Y - 40} className="stroke-ink" strokeWidth={2} />
           <Diode x={x} y={LINE_Y - 24} up cls={cls} />
-          <text x={x} y={LINE_Y - 44} textAnchor="middle" className="fill-muted font-mono text-[10px]">
+          <text
+            x={x}
+            y={LINE_Y - 44}
+            textAnchor="middle"
+            className="fill-muted font-mono text-[10px]"
+          >
             +rail
           </text>
           {lead(LINE_Y, GROUND_Y - 8)}
           <Diode x={x} y={mid} up cls={cls} />
-          <text x={x} y={GROUND_Y + 4} textAnchor="middle" className="fill-muted font-mono text-[10px]">
+          <text
+            x={x}
+            y={GROUND_Y + 4}
+            textAnchor="middle"
+            className="fill-muted font-mono text-[10px]"
+          >
             −rail
           </text>
           {label}
@@ -155,8 +249,19 @@ function ShuntSymbol({ element, x, marked }: { element: ShuntElement; x: number;
       return (
         <g>
           {lead(LINE_Y, GROUND_Y)}
-          <rect x={x - 8} y={mid - 20} width={16} height={40} className={`fill-panel ${cls}`} strokeWidth={2} />
-          <path d={`M${x - 13} ${mid + 18} L${x + 9} ${mid - 18} h5`} className={`fill-none ${cls}`} strokeWidth={1.5} />
+          <rect
+            x={x - 8}
+            y={mid - 20}
+            width={16}
+            height={40}
+            className={`fill-panel ${cls}`}
+            strokeWidth={2}
+          />
+          <path
+            d={`M${x - 13} ${mid + 18} L${x + 9} ${mid - 18} h5`}
+            className={`fill-none ${cls}`}
+            strokeWidth={1.5}
+          />
           <text x={x - 12} y={mid + 32} textAnchor="end" className="fill-muted text-[9px]">
             U
           </text>
@@ -169,8 +274,22 @@ function ShuntSymbol({ element, x, marked }: { element: ShuntElement; x: number;
         <g>
           {lead(LINE_Y, mid - 4)}
           {lead(mid + 4, GROUND_Y)}
-          <line x1={x - 13} x2={x + 13} y1={mid - 4} y2={mid - 4} className={cls} strokeWidth={2.5} />
-          <line x1={x - 13} x2={x + 13} y1={mid + 4} y2={mid + 4} className={cls} strokeWidth={2.5} />
+          <line
+            x1={x - 13}
+            x2={x + 13}
+            y1={mid - 4}
+            y2={mid - 4}
+            className={cls}
+            strokeWidth={2.5}
+          />
+          <line
+            x1={x - 13}
+            x2={x + 13}
+            y1={mid + 4}
+            y2={mid + 4}
+            className={cls}
+            strokeWidth={2.5}
+          />
           {ground}
           {label}
         </g>
@@ -179,7 +298,14 @@ function ShuntSymbol({ element, x, marked }: { element: ShuntElement; x: number;
       return (
         <g>
           {lead(LINE_Y, GROUND_Y)}
-          <rect x={x - 8} y={mid - 20} width={16} height={40} className={`fill-panel ${cls}`} strokeWidth={2} />
+          <rect
+            x={x - 8}
+            y={mid - 20}
+            width={16}
+            height={40}
+            className={`fill-panel ${cls}`}
+            strokeWidth={2}
+          />
           {ground}
           {label}
         </g>
@@ -200,17 +326,19 @@ export function GuardSchematic({
   marked?: string[];
   title?: string;
 }) {
-  let x = LEFT;
-  const placed = guard.stages.map((stage) => {
-    const at = x;
-    x += stageWidth(stage);
-    return { stage, at };
-  });
+  const placed: { stage: GuardStage; at: number }[] = [];
+  for (const stage of guard.stages) {
+    const last = placed.at(-1);
+    placed.push({ stage, at: last ? last.at + stageWidth(last.stage) : LEFT });
+  }
+  const lastPlaced = placed.at(-1);
+  const x = lastPlaced ? lastPlaced.at + stageWidth(lastPlaced.stage) : LEFT;
   const inputX = x + 16;
   const width = inputX + INPUT_W + 16;
   const height = GROUND_Y + 24;
   const input = guard.input;
-  const fmt = (v: number | undefined, unit: string) => (typeof v === 'number' && Number.isFinite(v) ? formatEng(v, unit) : '?');
+  const fmt = (v: number | undefined, unit: string) =>
+    typeof v === 'number' && Number.isFinite(v) ? formatEng(v, unit) : '?';
 
   return (
     <div className="overflow-x-auto">
@@ -221,24 +349,50 @@ export function GuardSchematic({
         role="img"
         aria-label={`${title}: ${guard.stages.length} stages${guard.stages.length ? ', ' : ''}${guard.stages
           .map((s) => [s.series.id, ...s.shunts.map((sh) => sh.id)].join(' + '))
-          .join(', then ')}; protected input ${fmt(input.negativeRail, 'V')} to ${fmt(input.positiveRail, 'V')}`}
+          .join(
+            ', then ',
+          )}; protected input ${fmt(input.negativeRail, 'V')} to ${fmt(input.positiveRail, 'V')}`}
         className="block max-w-none"
         data-testid="guard-schematic"
       >
         {/* field terminal */}
-        <circle cx={LEFT - 22} cy={LINE_Y} r={8} className="fill-panel stroke-ink" strokeWidth={2} />
+        <circle
+          cx={LEFT - 22}
+          cy={LINE_Y}
+          r={8}
+          className="fill-panel stroke-ink"
+          strokeWidth={2}
+        />
         <text x={LEFT - 22} y={LINE_Y - 16} textAnchor="middle" className="fill-muted text-[10px]">
           field
         </text>
-        <line x1={LEFT - 14} x2={LEFT} y1={LINE_Y} y2={LINE_Y} className="stroke-ink" strokeWidth={2} />
+        <line
+          x1={LEFT - 14}
+          x2={LEFT}
+          y1={LINE_Y}
+          y2={LINE_Y}
+          className="stroke-ink"
+          strokeWidth={2}
+        />
 
         {placed.map(({ stage, at }, i) => {
           const nodeX = at + SERIES_W;
           const busEnd = at + stageWidth(stage);
           return (
             <g key={`${stage.series.id}-${i}`}>
-              <SeriesSymbol element={stage.series} x={at} marked={marked.includes(stage.series.id)} />
-              <line x1={nodeX} x2={busEnd} y1={LINE_Y} y2={LINE_Y} className="stroke-ink" strokeWidth={2} />
+              <SeriesSymbol
+                element={stage.series}
+                x={at}
+                marked={marked.includes(stage.series.id)}
+              />
+              <line
+                x1={nodeX}
+                x2={busEnd}
+                y1={LINE_Y}
+                y2={LINE_Y}
+                className="stroke-ink"
+                strokeWidth={2}
+              />
               {stage.shunts.map((shunt, j) => {
                 const sx = nodeX + 24 + j * SHUNT_PITCH;
                 return (
@@ -252,7 +406,14 @@ export function GuardSchematic({
                 stage {i + 1}
               </text>
               {i > 0 ? (
-                <line x1={at} x2={at} y1={20} y2={GROUND_Y + 14} className="stroke-line" strokeDasharray="2 4" />
+                <line
+                  x1={at}
+                  x2={at}
+                  y1={20}
+                  y2={GROUND_Y + 14}
+                  className="stroke-line"
+                  strokeDasharray="2 4"
+                />
               ) : null}
             </g>
           );
@@ -260,7 +421,15 @@ export function GuardSchematic({
 
         {/* protected input */}
         <line x1={x} x2={inputX} y1={LINE_Y} y2={LINE_Y} className="stroke-ink" strokeWidth={2} />
-        <rect x={inputX} y={LINE_Y - 34} width={INPUT_W} height={96} rx={3} className="fill-accent-soft stroke-ink" strokeWidth={2} />
+        <rect
+          x={inputX}
+          y={LINE_Y - 34}
+          width={INPUT_W}
+          height={96}
+          rx={3}
+          className="fill-accent-soft stroke-ink"
+          strokeWidth={2}
+        />
         <text x={inputX + 8} y={LINE_Y - 18} className="fill-ink text-[11px] font-semibold">
           protected input
         </text>
@@ -271,10 +440,14 @@ export function GuardSchematic({
           {`abs max ±${fmt(input.absMaxBeyondRail, 'V')}`}
         </text>
         <text x={inputX + 8} y={LINE_Y + 28} className="fill-ink font-mono text-[10px]">
-          {input.absMaxCurrent !== undefined ? `I max ${fmt(input.absMaxCurrent, 'A')}` : 'I max not given'}
+          {input.absMaxCurrent !== undefined
+            ? `I max ${fmt(input.absMaxCurrent, 'A')}`
+            : 'I max not given'}
         </text>
         <text x={inputX + 8} y={LINE_Y + 43} className="fill-ink font-mono text-[10px]">
-          {input.inputResistance !== undefined ? `R in ${fmt(input.inputResistance, 'Ω')}` : 'high impedance'}
+          {input.inputResistance !== undefined
+            ? `R in ${fmt(input.inputResistance, 'Ω')}`
+            : 'high impedance'}
         </text>
         {guard.stages.length === 0 ? (
           <text x={LEFT} y={LINE_Y + 40} className="fill-danger text-[11px]">

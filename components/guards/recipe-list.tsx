@@ -26,7 +26,15 @@ function summary(recipe: GuardRecipe): string {
 }
 
 /** The project's library of guard recipes; a recipe is reused by many channels. */
-export function RecipeList({ projectId, canWrite, initial }: { projectId: number; canWrite: boolean; initial: GuardRecipe[] }) {
+export function RecipeList({
+  projectId,
+  canWrite,
+  initial,
+}: {
+  projectId: number;
+  canWrite: boolean;
+  initial: GuardRecipe[];
+}) {
   const api = projectApi(projectId);
   const { data } = useQuery({
     queryKey: keys.recipes(projectId),
@@ -38,7 +46,10 @@ export function RecipeList({ projectId, canWrite, initial }: { projectId: number
       <PanelTitle
         aside={
           canWrite ? (
-            <Link href={`/projects/${projectId}/guards/new`} className={buttonVariants({ size: 'sm' })}>
+            <Link
+              href={`/projects/${projectId}/guards/new`}
+              className={buttonVariants({ size: 'sm' })}
+            >
               New recipe
             </Link>
           ) : (
@@ -49,13 +60,19 @@ export function RecipeList({ projectId, canWrite, initial }: { projectId: number
         Guard recipes
       </PanelTitle>
       {data.items.length === 0 ? (
-        <p className="text-sm text-muted">No recipes yet. A recipe describes one channel&apos;s protection network, from the field terminal inward.</p>
+        <p className="text-sm text-muted">
+          No recipes yet. A recipe describes one channel&apos;s protection network, from the field
+          terminal inward.
+        </p>
       ) : (
         <ul className="divide-y divide-line">
           {data.items.map((r) => (
             <li key={r.id} className="py-3">
               <div className="flex flex-wrap items-baseline justify-between gap-2">
-                <Link href={`/projects/${projectId}/guards/${r.id}`} className="font-medium text-accent hover:underline">
+                <Link
+                  href={`/projects/${projectId}/guards/${r.id}`}
+                  className="font-medium text-accent hover:underline"
+                >
                   {r.name}
                 </Link>
                 <span className="text-xs text-muted">
@@ -64,7 +81,9 @@ export function RecipeList({ projectId, canWrite, initial }: { projectId: number
               </div>
               {r.description ? <p className="text-sm text-muted">{r.description}</p> : null}
               <p className="font-mono text-xs">{summary(r)}</p>
-              {r.isPreset ? <p className="text-xs text-caution">From a preset: {TYPICAL_CAUTION}.</p> : null}
+              {r.isPreset ? (
+                <p className="text-xs text-caution">From a preset: {TYPICAL_CAUTION}.</p>
+              ) : null}
             </li>
           ))}
         </ul>

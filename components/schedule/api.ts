@@ -65,11 +65,16 @@ async function request<T>(url: string, init?: RequestInit): Promise<T> {
   try {
     response = await fetch(url, {
       ...init,
-      headers: init?.body instanceof FormData ? init.headers : { 'content-type': 'application/json', ...init?.headers },
+      headers:
+        init?.body instanceof FormData
+          ? init.headers
+          : { 'content-type': 'application/json', ...init?.headers },
       credentials: 'same-origin',
     });
   } catch {
-    throw new ApiError(0, { error: 'The server could not be reached. Check the connection; nothing was saved.' });
+    throw new ApiError(0, {
+      error: 'The server could not be reached. Check the connection; nothing was saved.',
+    });
   }
   const text = await response.text();
   let body: unknown = null;
@@ -110,39 +115,63 @@ export function projectApi(projectId: number) {
     createCabinet: (body: { tag: string; name: string; location?: string | null }) =>
       request<Cabinet>(`${base}/cabinets`, { method: 'POST', body: json(body) }),
     updateCabinet: (id: number, version: number, changes: Record<string, unknown>) =>
-      request<Cabinet>(`${base}/cabinets/${id}`, { method: 'PATCH', body: json({ version, ...changes }) }),
+      request<Cabinet>(`${base}/cabinets/${id}`, {
+        method: 'PATCH',
+        body: json({ version, ...changes }),
+      }),
     deleteCabinet: (id: number, version: number) =>
       request<{ deleted: true }>(`${base}/cabinets/${id}?version=${version}`, { method: 'DELETE' }),
 
-    listStrips: (cabinetId: number) => request<{ items: Strip[] }>(`${base}/cabinets/${cabinetId}/strips`),
+    listStrips: (cabinetId: number) =>
+      request<{ items: Strip[] }>(`${base}/cabinets/${cabinetId}/strips`),
     createStrip: (cabinetId: number, body: { tag: string; name?: string | null; order?: number }) =>
       request<Strip>(`${base}/cabinets/${cabinetId}/strips`, { method: 'POST', body: json(body) }),
     updateStrip: (id: number, version: number, changes: Record<string, unknown>) =>
-      request<Strip>(`${base}/strips/${id}`, { method: 'PATCH', body: json({ version, ...changes }) }),
+      request<Strip>(`${base}/strips/${id}`, {
+        method: 'PATCH',
+        body: json({ version, ...changes }),
+      }),
     deleteStrip: (id: number, version: number) =>
       request<{ deleted: true }>(`${base}/strips/${id}?version=${version}`, { method: 'DELETE' }),
 
     /** The whole cabinet in one page (the table virtualises; the contract allows 5 000). */
     listTerminals: (cabinetId: number, query: TerminalQuery = {}) => {
       const params = new URLSearchParams({ page: '1', pageSize: '5000' });
-      for (const [k, v] of Object.entries(query)) if (v !== undefined && v !== '') params.set(k, String(v));
-      return request<{ items: TerminalRow[]; total: number }>(`${base}/cabinets/${cabinetId}/terminals?${params}`);
+      for (const [k, v] of Object.entries(query))
+        if (v !== undefined && v !== '') params.set(k, String(v));
+      return request<{ items: TerminalRow[]; total: number }>(
+        `${base}/cabinets/${cabinetId}/terminals?${params}`,
+      );
     },
-    createTerminal: (body: Partial<TerminalFields> & { stripId: number; position: number; label: string }) =>
-      request<TerminalRow>(`${base}/terminals`, { method: 'POST', body: json(body) }),
+    createTerminal: (
+      body: Partial<TerminalFields> & { stripId: number; position: number; label: string },
+    ) => request<TerminalRow>(`${base}/terminals`, { method: 'POST', body: json(body) }),
     updateTerminal: (id: number, version: number, changes: TerminalChanges) =>
-      request<TerminalRow>(`${base}/terminals/${id}`, { method: 'PATCH', body: json({ version, ...changes }) }),
+      request<TerminalRow>(`${base}/terminals/${id}`, {
+        method: 'PATCH',
+        body: json({ version, ...changes }),
+      }),
     bulkUpdateTerminals: (updates: TerminalUpdate[]) =>
-      request<{ items: TerminalRow[] }>(`${base}/terminals`, { method: 'PATCH', body: json({ updates }) }),
+      request<{ items: TerminalRow[] }>(`${base}/terminals`, {
+        method: 'PATCH',
+        body: json({ updates }),
+      }),
     deleteTerminal: (id: number, version: number) =>
-      request<{ deleted: true }>(`${base}/terminals/${id}?version=${version}`, { method: 'DELETE' }),
+      request<{ deleted: true }>(`${base}/terminals/${id}?version=${version}`, {
+        method: 'DELETE',
+      }),
 
     listChannels: (cabinetId?: number) =>
-      request<{ items: ChannelRow[] }>(`${base}/channels${cabinetId ? `?cabinetId=${cabinetId}` : ''}`),
+      request<{ items: ChannelRow[] }>(
+        `${base}/channels${cabinetId ? `?cabinetId=${cabinetId}` : ''}`,
+      ),
     createChannel: (body: Record<string, unknown>) =>
       request<ChannelRow>(`${base}/channels`, { method: 'POST', body: json(body) }),
     updateChannel: (id: number, version: number, changes: Record<string, unknown>) =>
-      request<ChannelRow>(`${base}/channels/${id}`, { method: 'PATCH', body: json({ version, ...changes }) }),
+      request<ChannelRow>(`${base}/channels/${id}`, {
+        method: 'PATCH',
+        body: json({ version, ...changes }),
+      }),
     deleteChannel: (id: number, version: number) =>
       request<{ deleted: true }>(`${base}/channels/${id}?version=${version}`, { method: 'DELETE' }),
 
@@ -150,9 +179,14 @@ export function projectApi(projectId: number) {
     createGuardRecipe: (body: { name: string; description?: string | null; guard: unknown }) =>
       request<GuardRecipe>(`${base}/guard-recipes`, { method: 'POST', body: json(body) }),
     updateGuardRecipe: (id: number, version: number, changes: Record<string, unknown>) =>
-      request<GuardRecipe>(`${base}/guard-recipes/${id}`, { method: 'PATCH', body: json({ version, ...changes }) }),
+      request<GuardRecipe>(`${base}/guard-recipes/${id}`, {
+        method: 'PATCH',
+        body: json({ version, ...changes }),
+      }),
     deleteGuardRecipe: (id: number, version: number) =>
-      request<{ deleted: true }>(`${base}/guard-recipes/${id}?version=${version}`, { method: 'DELETE' }),
+      request<{ deleted: true }>(`${base}/guard-recipes/${id}?version=${version}`, {
+        method: 'DELETE',
+      }),
 
     /** Preview answers 200 with errors listed; commit answers 422 with the same preview when any row is bad. */
     importPreview: (cabinetId: number, file: File, mapping?: Record<string, string>) =>
@@ -167,7 +201,8 @@ export function projectApi(projectId: number) {
       }),
     /** The current exposure map of the whole project (computed, not stored). */
     exposures: () => request<ExposureMapView>(`${base}/exposures`),
-    exportUrl: (cabinetId: number, format: 'csv' | 'xlsx') => `${base}/cabinets/${cabinetId}/export?format=${format}`,
+    exportUrl: (cabinetId: number, format: 'csv' | 'xlsx') =>
+      `${base}/cabinets/${cabinetId}/export?format=${format}`,
   };
 }
 
@@ -184,7 +219,13 @@ export interface ExposureMapView {
   targets: {
     terminalId: string;
     label: string;
-    exposures: { hazardTerminalId: string; targetTerminalId: string; mechanism: Mechanism; likelihood: LikelihoodClass; reason: string }[];
+    exposures: {
+      hazardTerminalId: string;
+      targetTerminalId: string;
+      mechanism: Mechanism;
+      likelihood: LikelihoodClass;
+      reason: string;
+    }[];
   }[];
 }
 
@@ -193,10 +234,12 @@ export type ProjectApi = ReturnType<typeof projectApi>;
 /** Query keys in one place so writes invalidate exactly what they touch. */
 export const keys = {
   cabinets: (projectId: number) => ['projects', projectId, 'cabinets'] as const,
-  strips: (projectId: number, cabinetId: number) => ['projects', projectId, 'cabinets', cabinetId, 'strips'] as const,
+  strips: (projectId: number, cabinetId: number) =>
+    ['projects', projectId, 'cabinets', cabinetId, 'strips'] as const,
   terminals: (projectId: number, cabinetId: number) =>
     ['projects', projectId, 'cabinets', cabinetId, 'terminals'] as const,
-  channels: (projectId: number, cabinetId?: number) => ['projects', projectId, 'channels', cabinetId ?? 'all'] as const,
+  channels: (projectId: number, cabinetId?: number) =>
+    ['projects', projectId, 'channels', cabinetId ?? 'all'] as const,
   recipes: (projectId: number) => ['projects', projectId, 'guard-recipes'] as const,
   exposures: (projectId: number) => ['projects', projectId, 'exposures'] as const,
 };

@@ -11,7 +11,15 @@ import { Modal } from './modal';
 import type { Cabinet } from './types';
 
 /** The project's cabinets with their counts; writers add, rename and remove empty ones. */
-export function CabinetList({ projectId, canWrite, initial }: { projectId: number; canWrite: boolean; initial: Cabinet[] }) {
+export function CabinetList({
+  projectId,
+  canWrite,
+  initial,
+}: {
+  projectId: number;
+  canWrite: boolean;
+  initial: Cabinet[];
+}) {
   const api = projectApi(projectId);
   const queryClient = useQueryClient();
   const { data } = useQuery({
@@ -51,13 +59,19 @@ export function CabinetList({ projectId, canWrite, initial }: { projectId: numbe
         Cabinets
       </PanelTitle>
       {failure ? (
-        <p role="alert" className="mb-3 rounded-sm border border-danger bg-danger-soft p-2 text-sm text-danger">
+        <p
+          role="alert"
+          className="mb-3 rounded-sm border border-danger bg-danger-soft p-2 text-sm text-danger"
+        >
           {failure}
         </p>
       ) : null}
       {cabinets.length === 0 ? (
         <p className="text-sm text-muted">
-          No cabinets yet.{canWrite ? ' Add the first one, then its strips, then import or enter its terminals.' : ''}
+          No cabinets yet.
+          {canWrite
+            ? ' Add the first one, then its strips, then import or enter its terminals.'
+            : ''}
         </p>
       ) : (
         <table className="w-full text-sm">
@@ -76,12 +90,18 @@ export function CabinetList({ projectId, canWrite, initial }: { projectId: numbe
             {cabinets.map((c) => (
               <tr key={c.id} className="border-t border-line">
                 <td className="py-2 font-mono">
-                  <Link href={`/projects/${projectId}/cabinets/${c.id}`} className="text-accent hover:underline">
+                  <Link
+                    href={`/projects/${projectId}/cabinets/${c.id}`}
+                    className="text-accent hover:underline"
+                  >
                     {c.tag}
                   </Link>
                 </td>
                 <td className="py-2">
-                  <Link href={`/projects/${projectId}/cabinets/${c.id}`} className="hover:underline">
+                  <Link
+                    href={`/projects/${projectId}/cabinets/${c.id}`}
+                    className="hover:underline"
+                  >
                     {c.name}
                   </Link>
                 </td>
@@ -94,7 +114,13 @@ export function CabinetList({ projectId, canWrite, initial }: { projectId: numbe
                     <Button size="sm" variant="ghost" onClick={() => setEditing(c)}>
                       Edit
                     </Button>
-                    <Button size="sm" variant="ghost" onClick={() => void remove(c)} disabled={c.stripCount > 0} title={c.stripCount > 0 ? 'Remove its strips first' : undefined}>
+                    <Button
+                      size="sm"
+                      variant="ghost"
+                      onClick={() => void remove(c)}
+                      disabled={c.stripCount > 0}
+                      title={c.stripCount > 0 ? 'Remove its strips first' : undefined}
+                    >
                       Delete
                     </Button>
                   </td>
@@ -104,9 +130,17 @@ export function CabinetList({ projectId, canWrite, initial }: { projectId: numbe
           </tbody>
         </table>
       )}
-      <Modal open={editing !== null} title={editing === 'new' ? 'New cabinet' : `Cabinet ${editing?.tag ?? ''}`} onClose={() => setEditing(null)}>
+      <Modal
+        open={editing !== null}
+        title={editing === 'new' ? 'New cabinet' : `Cabinet ${editing?.tag ?? ''}`}
+        onClose={() => setEditing(null)}
+      >
         {editing !== null ? (
-          <CabinetForm projectId={projectId} cabinet={editing === 'new' ? undefined : editing} onDone={() => setEditing(null)} />
+          <CabinetForm
+            projectId={projectId}
+            cabinet={editing === 'new' ? undefined : editing}
+            onDone={() => setEditing(null)}
+          />
         ) : null}
       </Modal>
     </Panel>

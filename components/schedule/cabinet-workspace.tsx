@@ -65,12 +65,22 @@ export function CabinetWorkspace({
     return exposureMap.data.targets
       .flatMap((t) => t.exposures)
       .filter((e) => overlay === 'all' || e.likelihood === 'likely')
-      .map((e) => ({ from: Number(e.hazardTerminalId), to: Number(e.targetTerminalId), mechanism: e.mechanism, likelihood: e.likelihood }))
+      .map((e) => ({
+        from: Number(e.hazardTerminalId),
+        to: Number(e.targetTerminalId),
+        mechanism: e.mechanism,
+        likelihood: e.likelihood,
+      }))
       .filter((e) => here.has(e.from) && here.has(e.to));
   }, [overlay, exposureMap.data, terminalList]);
   const neighbours = selected
     ? terminalList
-        .filter((t) => t.stripId === selected.stripId && t.id !== selected.id && Math.abs(t.position - selected.position) <= 1)
+        .filter(
+          (t) =>
+            t.stripId === selected.stripId &&
+            t.id !== selected.id &&
+            Math.abs(t.position - selected.position) <= 1,
+        )
         .sort((a, b) => a.position - b.position || a.level - b.level)
     : [];
 
@@ -109,17 +119,28 @@ export function CabinetWorkspace({
               </Button>
             </>
           ) : null}
-          <a className={cn(buttonVariants({ variant: 'secondary', size: 'sm' }))} href={api.exportUrl(cabinet.id, 'csv')} download>
+          <a
+            className={cn(buttonVariants({ variant: 'secondary', size: 'sm' }))}
+            href={api.exportUrl(cabinet.id, 'csv')}
+            download
+          >
             Export CSV
           </a>
-          <a className={cn(buttonVariants({ variant: 'secondary', size: 'sm' }))} href={api.exportUrl(cabinet.id, 'xlsx')} download>
+          <a
+            className={cn(buttonVariants({ variant: 'secondary', size: 'sm' }))}
+            href={api.exportUrl(cabinet.id, 'xlsx')}
+            download
+          >
             Export XLSX
           </a>
         </div>
       </div>
 
       {loadError ? (
-        <p role="alert" className="rounded-sm border border-danger bg-danger-soft p-3 text-sm text-danger">
+        <p
+          role="alert"
+          className="rounded-sm border border-danger bg-danger-soft p-3 text-sm text-danger"
+        >
           The schedule could not be loaded: {loadError.message}{' '}
           <button
             type="button"
@@ -139,7 +160,8 @@ export function CabinetWorkspace({
         <PanelTitle
           aside={
             <span className="text-xs text-muted">
-              {stripList.length} strips · {terminalList.length} terminals · tap a terminal for its details
+              {stripList.length} strips · {terminalList.length} terminals · tap a terminal for its
+              details
             </span>
           }
         >
@@ -230,7 +252,9 @@ export function CabinetWorkspace({
           )}
         </Panel>
         <Panel className="p-3 sm:p-5">
-          <PanelTitle aside={<span className="text-xs text-muted">{channelList.length}</span>}>Channels</PanelTitle>
+          <PanelTitle aside={<span className="text-xs text-muted">{channelList.length}</span>}>
+            Channels
+          </PanelTitle>
           {channelList.length === 0 ? (
             <p className="text-sm text-muted">No channels in this cabinet yet.</p>
           ) : (
@@ -242,11 +266,19 @@ export function CabinetWorkspace({
                     <p className="truncate text-xs text-muted">
                       {c.signalType} · {c.signalTerminalLabel ?? 'no terminal'}
                       {c.returnTerminalLabel ? ` / ${c.returnTerminalLabel}` : ''} ·{' '}
-                      {c.guardRecipeName ? c.guardRecipeName : <span className="text-danger">no guard</span>}
+                      {c.guardRecipeName ? (
+                        c.guardRecipeName
+                      ) : (
+                        <span className="text-danger">no guard</span>
+                      )}
                       {c.guardOverrides ? ' (as-built overrides)' : ''}
                     </p>
                   </div>
-                  <Button size="sm" variant="ghost" onClick={() => setDialog({ kind: 'channel', channel: c })}>
+                  <Button
+                    size="sm"
+                    variant="ghost"
+                    onClick={() => setDialog({ kind: 'channel', channel: c })}
+                  >
                     {canWrite ? 'Edit' : 'View'}
                   </Button>
                 </li>
@@ -256,14 +288,29 @@ export function CabinetWorkspace({
         </Panel>
       </div>
 
-      <Modal open={dialog?.kind === 'strip'} title={dialog?.kind === 'strip' && dialog.strip ? `Strip ${dialog.strip.tag}` : 'Add a strip'} onClose={close}>
+      <Modal
+        open={dialog?.kind === 'strip'}
+        title={
+          dialog?.kind === 'strip' && dialog.strip ? `Strip ${dialog.strip.tag}` : 'Add a strip'
+        }
+        onClose={close}
+      >
         {dialog?.kind === 'strip' ? (
-          <StripForm projectId={projectId} cabinetId={cabinet.id} strip={dialog.strip} onDone={close} />
+          <StripForm
+            projectId={projectId}
+            cabinetId={cabinet.id}
+            strip={dialog.strip}
+            onDone={close}
+          />
         ) : null}
       </Modal>
       <Modal
         open={dialog?.kind === 'terminal'}
-        title={dialog?.kind === 'terminal' && dialog.terminal ? `Terminal ${dialog.terminal.label}` : 'Add a terminal'}
+        title={
+          dialog?.kind === 'terminal' && dialog.terminal
+            ? `Terminal ${dialog.terminal.label}`
+            : 'Add a terminal'
+        }
         onClose={close}
         wide
       >
@@ -283,7 +330,11 @@ export function CabinetWorkspace({
       </Modal>
       <Modal
         open={dialog?.kind === 'channel'}
-        title={dialog?.kind === 'channel' && dialog.channel ? `Channel ${dialog.channel.tag}` : 'Add a channel'}
+        title={
+          dialog?.kind === 'channel' && dialog.channel
+            ? `Channel ${dialog.channel.tag}`
+            : 'Add a channel'
+        }
         onClose={close}
         wide
       >
@@ -298,9 +349,19 @@ export function CabinetWorkspace({
           />
         ) : null}
       </Modal>
-      <Modal open={dialog?.kind === 'import'} title={`Import terminals into ${cabinet.tag}`} onClose={close} wide>
+      <Modal
+        open={dialog?.kind === 'import'}
+        title={`Import terminals into ${cabinet.tag}`}
+        onClose={close}
+        wide
+      >
         {dialog?.kind === 'import' ? (
-          <ImportWizard projectId={projectId} cabinetId={cabinet.id} cabinetTag={cabinet.tag} onClose={close} />
+          <ImportWizard
+            projectId={projectId}
+            cabinetId={cabinet.id}
+            cabinetTag={cabinet.tag}
+            onClose={close}
+          />
         ) : null}
       </Modal>
     </div>

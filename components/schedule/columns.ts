@@ -15,7 +15,8 @@ export interface LookupContext {
   channelsByTag: Map<string, number>;
 }
 
-export type CellParse = { ok: true; changes: Partial<TerminalFields> } | { ok: false; message: string };
+export type CellParse =
+  { ok: true; changes: Partial<TerminalFields> } | { ok: false; message: string };
 
 export interface ScheduleColumn {
   id: ImportColumn;
@@ -54,14 +55,23 @@ function textColumn(
     sortValue: (row) => ((row[field] as string | null) ?? '').toLowerCase(),
     parse: (text) => {
       const value = text.trim();
-      if (value === '') return opts.required ? bad(`${id} must not be empty.`) : ok({ [field]: null });
-      if (value.length > max) return bad(`${id} is at most ${max} characters (this has ${value.length}).`);
+      if (value === '')
+        return opts.required ? bad(`${id} must not be empty.`) : ok({ [field]: null });
+      if (value.length > max)
+        return bad(`${id} is at most ${max} characters (this has ${value.length}).`);
       return ok({ [field]: value });
     },
   };
 }
 
-function wholeColumn(id: ImportColumn, field: 'position' | 'level', width: number, min: number, max: number, hint: string): ScheduleColumn {
+function wholeColumn(
+  id: ImportColumn,
+  field: 'position' | 'level',
+  width: number,
+  min: number,
+  max: number,
+  hint: string,
+): ScheduleColumn {
   return {
     id,
     field,
@@ -81,7 +91,13 @@ function wholeColumn(id: ImportColumn, field: 'position' | 'level', width: numbe
   };
 }
 
-function engColumn(id: ImportColumn, field: 'nominalVoltage' | 'frequency' | 'sourceImpedance', unit: UnitSymbol, width: number, hint: string): ScheduleColumn {
+function engColumn(
+  id: ImportColumn,
+  field: 'nominalVoltage' | 'frequency' | 'sourceImpedance',
+  unit: UnitSymbol,
+  width: number,
+  hint: string,
+): ScheduleColumn {
   return {
     id,
     field,
@@ -122,7 +138,8 @@ function enumColumn(
     parse: (text) => {
       const value = text.trim().toLowerCase();
       if (value === '') return required ? bad(`${id} must not be empty.`) : ok({ [field]: null });
-      if (!options.includes(value)) return bad(`${id} must be one of ${options.join(', ')} (got "${text.trim()}").`);
+      if (!options.includes(value))
+        return bad(`${id} must be one of ${options.join(', ')} (got "${text.trim()}").`);
       return ok({ [field]: value as never });
     },
   };
@@ -156,12 +173,31 @@ export const SCHEDULE_COLUMNS: ScheduleColumn[] = [
   textColumn('core', 'cableCore', 64, 'Core of the cable', { max: 20 }),
   textColumn('connector', 'connector', 96, 'Connector'),
   textColumn('colour', 'wireColour', 84, 'Wire colour', { max: 30 }),
-  enumColumn('circuit_class', 'circuitClass', CIRCUIT_CLASSES, 112, CIRCUIT_CLASSES.join(' · '), true),
-  enumColumn('hazard_kind', 'hazardKind', HAZARD_KINDS, 120, 'Hazard terminals only: ' + HAZARD_KINDS.join(' · ')),
+  enumColumn(
+    'circuit_class',
+    'circuitClass',
+    CIRCUIT_CLASSES,
+    112,
+    CIRCUIT_CLASSES.join(' · '),
+    true,
+  ),
+  enumColumn(
+    'hazard_kind',
+    'hazardKind',
+    HAZARD_KINDS,
+    120,
+    'Hazard terminals only: ' + HAZARD_KINDS.join(' · '),
+  ),
   engColumn('voltage', 'nominalVoltage', 'V', 84, 'Nominal volts (RMS for AC), e.g. 230, 24V, 400'),
   enumColumn('ac_dc', 'currentKind', CURRENT_KINDS, 64, 'ac or dc'),
   engColumn('frequency_hz', 'frequency', 'Hz', 96, 'Hz, for AC hazards'),
-  engColumn('source_ohms', 'sourceImpedance', 'Ω', 96, 'Source impedance, e.g. 0R5, 2, 10k; blank = default'),
+  engColumn(
+    'source_ohms',
+    'sourceImpedance',
+    'Ω',
+    96,
+    'Source impedance, e.g. 0R5, 2, 10k; blank = default',
+  ),
   textColumn('bridge', 'bridgeGroup', 80, 'Jumper or comb group'),
   {
     id: 'channel',
@@ -174,7 +210,8 @@ export const SCHEDULE_COLUMNS: ScheduleColumn[] = [
       const tag = text.trim();
       if (tag === '') return ok({ channelId: null });
       const id = ctx.channelsByTag.get(tag);
-      if (id === undefined) return bad(`channel "${tag}" is not a channel of this cabinet; create it first.`);
+      if (id === undefined)
+        return bad(`channel "${tag}" is not a channel of this cabinet; create it first.`);
       return ok({ channelId: id });
     },
   },
@@ -184,7 +221,13 @@ export const SCHEDULE_COLUMNS: ScheduleColumn[] = [
 export const COLUMN_BY_ID = new Map(SCHEDULE_COLUMNS.map((c) => [c.id, c]));
 
 /** Column ids shown by default; the rest can be turned on. */
-export const DEFAULT_HIDDEN: ImportColumn[] = ['terminal_no', 'connector', 'frequency_hz', 'source_ohms', 'notes'];
+export const DEFAULT_HIDDEN: ImportColumn[] = [
+  'terminal_no',
+  'connector',
+  'frequency_hz',
+  'source_ohms',
+  'notes',
+];
 
 /**
  * Tab-separated text from a spreadsheet → a grid of cells. A trailing newline (spreadsheets

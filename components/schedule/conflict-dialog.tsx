@@ -14,7 +14,9 @@ function formatWhen(iso: string | undefined) {
 
 /** Who changed it, when the server says (`changedBy` on the conflict, or `updatedByName` on the record). */
 function who(item: ConflictItem) {
-  const name = item.changedBy?.name ?? (item.current as TerminalRow & { updatedByName?: string | null }).updatedByName;
+  const name =
+    item.changedBy?.name ??
+    (item.current as TerminalRow & { updatedByName?: string | null }).updatedByName;
   return name ? name : 'someone else';
 }
 
@@ -24,7 +26,10 @@ function describeMine(item: ConflictItem): string[] {
   return Object.keys(item.mine).map((field) => {
     const column = SCHEDULE_COLUMNS.find((c) => c.field === field);
     if (!column) return `${field}: ${String(item.mine[field as keyof typeof item.mine])}`;
-    const value = column.id === 'strip' || column.id === 'channel' ? String(item.mine[field as keyof typeof item.mine] ?? '—') : column.text(probe);
+    const value =
+      column.id === 'strip' || column.id === 'channel'
+        ? String(item.mine[field as keyof typeof item.mine] ?? '—')
+        : column.text(probe);
     return `${COLUMN_BY_ID.get(column.id)!.id}: “${value || '—'}”`;
   });
 }
@@ -48,11 +53,16 @@ export function ConflictDialog({
   onKeepMine: () => void;
 }) {
   return (
-    <Modal open={open} title="Someone else saved this first" onClose={() => undefined} dismissable={false}>
+    <Modal
+      open={open}
+      title="Someone else saved this first"
+      onClose={() => undefined}
+      dismissable={false}
+    >
       <div className="space-y-3 text-sm" data-testid="conflict-dialog">
         <p role="alert">
-          {message || 'The terminal changed since you opened it.'} Nothing of yours was saved yet, and nothing of yours is
-          lost: choose below.
+          {message || 'The terminal changed since you opened it.'} Nothing of yours was saved yet,
+          and nothing of yours is lost: choose below.
         </p>
         <ul className="space-y-3">
           {items.map((item) => {
@@ -61,14 +71,19 @@ export function ConflictDialog({
               <li key={item.id} className="rounded-sm border border-line p-3">
                 <p className="font-medium">
                   <span className="font-mono">{item.current.label}</span> on strip{' '}
-                  <span className="font-mono">{item.current.stripTag}</span> was changed by {who(item)} at{' '}
-                  {formatWhen(item.changedBy?.at ?? item.current.updatedAt)} (version {item.base?.version ?? '?'} → {item.current.version}).
+                  <span className="font-mono">{item.current.stripTag}</span> was changed by{' '}
+                  {who(item)} at {formatWhen(item.changedBy?.at ?? item.current.updatedAt)} (version{' '}
+                  {item.base?.version ?? '?'} → {item.current.version}).
                 </p>
                 <div className="mt-2 grid gap-2 md:grid-cols-2">
                   <div>
                     <p className="text-xs text-muted uppercase">Their change</p>
                     <ul className="font-mono text-xs">
-                      {theirs.length ? theirs.map((t) => <li key={t}>{t}</li>) : <li>(no visible field changed)</li>}
+                      {theirs.length ? (
+                        theirs.map((t) => <li key={t}>{t}</li>)
+                      ) : (
+                        <li>(no visible field changed)</li>
+                      )}
                     </ul>
                   </div>
                   <div>
@@ -91,7 +106,8 @@ export function ConflictDialog({
           <Button onClick={onKeepMine}>Keep mine and save again</Button>
         </div>
         <p className="text-xs text-muted">
-          “Keep mine” writes only the fields you edited over their version; their other changes stay.
+          “Keep mine” writes only the fields you edited over their version; their other changes
+          stay.
         </p>
       </div>
     </Modal>

@@ -61,8 +61,12 @@ export function ImportWizard({
 
   const readFile = async () => {
     if (!file) return setFailure('Choose a .csv or .xlsx file first.');
-    if (!/\.(csv|xlsx)$/i.test(file.name)) return setFailure(`${file.name} is not a .csv or .xlsx file.`);
-    if (file.size > MAX_BYTES) return setFailure(`${file.name} is ${(file.size / 1048576).toFixed(1)} MB; the limit is 5 MB.`);
+    if (!/\.(csv|xlsx)$/i.test(file.name))
+      return setFailure(`${file.name} is not a .csv or .xlsx file.`);
+    if (file.size > MAX_BYTES)
+      return setFailure(
+        `${file.name} is ${(file.size / 1048576).toFixed(1)} MB; the limit is 5 MB.`,
+      );
     const preview = await run('Reading the file…', () => api.importPreview(cabinetId, file));
     if (!preview) return;
     setMapping(Object.fromEntries(Object.entries(preview.suggestedMapping).filter(([, v]) => v)));
@@ -71,14 +75,18 @@ export function ImportWizard({
 
   const previewWithMapping = async () => {
     if (!file) return;
-    const preview = await run('Checking every row…', () => api.importPreview(cabinetId, file, mapping));
+    const preview = await run('Checking every row…', () =>
+      api.importPreview(cabinetId, file, mapping),
+    );
     if (preview) setStep({ name: 'preview', preview });
   };
 
   const commit = async () => {
     if (!file || step.name !== 'preview') return;
     const rows = step.preview.rows.length;
-    const result = await run(`Importing ${rows} rows in one transaction…`, () => api.importCommit(cabinetId, file, mapping));
+    const result = await run(`Importing ${rows} rows in one transaction…`, () =>
+      api.importCommit(cabinetId, file, mapping),
+    );
     if (!result) return;
     await Promise.all([
       queryClient.invalidateQueries({ queryKey: keys.terminals(projectId, cabinetId) }),
@@ -100,7 +108,11 @@ export function ImportWizard({
             aria-current={i === stepIndex ? 'step' : undefined}
             className={cn(
               'rounded-sm border px-2 py-1',
-              i === stepIndex ? 'border-accent bg-accent-soft text-ink' : i < stepIndex ? 'border-line text-ink' : 'border-line text-muted',
+              i === stepIndex
+                ? 'border-accent bg-accent-soft text-ink'
+                : i < stepIndex
+                  ? 'border-line text-ink'
+                  : 'border-line text-muted',
             )}
           >
             {i + 1}. {label}
@@ -115,7 +127,10 @@ export function ImportWizard({
         </div>
       ) : null}
       {failure ? (
-        <p role="alert" className="rounded-sm border border-danger bg-danger-soft p-2 text-sm text-danger">
+        <p
+          role="alert"
+          className="rounded-sm border border-danger bg-danger-soft p-2 text-sm text-danger"
+        >
           {failure}
         </p>
       ) : null}
@@ -123,9 +138,10 @@ export function ImportWizard({
       {step.name === 'pick' ? (
         <div className="space-y-3">
           <p className="text-sm">
-            Terminals for cabinet <span className="font-mono">{cabinetTag}</span>, one row per terminal, from a CSV or
-            Excel (.xlsx) file up to 5 MB. Rows that match an existing terminal (same strip, position and level) update it;
-            the rest are added. Our columns: <span className="font-mono text-xs">{IMPORT_COLUMNS.join(', ')}</span>.
+            Terminals for cabinet <span className="font-mono">{cabinetTag}</span>, one row per
+            terminal, from a CSV or Excel (.xlsx) file up to 5 MB. Rows that match an existing
+            terminal (same strip, position and level) update it; the rest are added. Our columns:{' '}
+            <span className="font-mono text-xs">{IMPORT_COLUMNS.join(', ')}</span>.
           </p>
           <label className="block text-sm font-medium" htmlFor="import-file">
             File to import
@@ -151,8 +167,8 @@ export function ImportWizard({
       {step.name === 'map' ? (
         <div className="space-y-3">
           <p className="text-sm">
-            {file?.name}: {step.preview.headers.length} columns, {step.preview.rows.length} rows. Match each of our columns
-            to one of yours; the suggestion is filled in.
+            {file?.name}: {step.preview.headers.length} columns, {step.preview.rows.length} rows.
+            Match each of our columns to one of yours; the suggestion is filled in.
           </p>
           <div className="grid gap-2 sm:grid-cols-2 lg:grid-cols-3">
             {IMPORT_COLUMNS.map((ours) => (
@@ -205,7 +221,8 @@ export function ImportWizard({
       {step.name === 'done' ? (
         <div className="space-y-3" role="status">
           <p className="text-base font-medium">
-            Imported {step.rows} rows: {step.result.created} terminals added, {step.result.updated} updated.
+            Imported {step.rows} rows: {step.result.created} terminals added, {step.result.updated}{' '}
+            updated.
           </p>
           <div className="flex justify-end">
             <Button onClick={onClose}>Close</Button>
@@ -238,12 +255,18 @@ function PreviewStep({
     <div className="space-y-3">
       <p className="text-sm" data-testid="import-summary">
         {preview.rows.length} rows read: <strong>{preview.validCount} ready</strong>,{' '}
-        <strong className={preview.errorCount ? 'text-danger' : undefined}>{bad.length} with errors</strong>. Nothing has
-        been written yet.
+        <strong className={preview.errorCount ? 'text-danger' : undefined}>
+          {bad.length} with errors
+        </strong>
+        . Nothing has been written yet.
       </p>
       {bad.length > 0 ? (
         <div className="max-h-64 overflow-auto rounded-sm border border-danger">
-          <table className="w-full text-sm" aria-label="Rows with errors" data-testid="import-errors">
+          <table
+            className="w-full text-sm"
+            aria-label="Rows with errors"
+            data-testid="import-errors"
+          >
             <thead className="sticky top-0 bg-danger-soft text-left text-xs">
               <tr>
                 <th className="px-2 py-1">Row</th>
@@ -267,7 +290,10 @@ function PreviewStep({
       ) : null}
       <details open={bad.length === 0}>
         <summary className="cursor-pointer text-sm">
-          Preview of the rows{preview.rows.length > SHOWN_ROWS ? ` (first ${SHOWN_ROWS} of ${preview.rows.length})` : ''}
+          Preview of the rows
+          {preview.rows.length > SHOWN_ROWS
+            ? ` (first ${SHOWN_ROWS} of ${preview.rows.length})`
+            : ''}
         </summary>
         <div className="mt-2 max-h-80 overflow-auto rounded-sm border border-line">
           <table className="text-xs" aria-label="Rows to import">
@@ -285,10 +311,19 @@ function PreviewStep({
               {shown.map((r) => {
                 const badColumns = new Set(r.errors.map((e) => e.column));
                 return (
-                  <tr key={r.row} className={cn('border-t border-line', r.errors.length && 'bg-danger-soft')}>
+                  <tr
+                    key={r.row}
+                    className={cn('border-t border-line', r.errors.length && 'bg-danger-soft')}
+                  >
                     <td className="px-2 py-1 font-mono">{r.row}</td>
                     {columns.map((c) => (
-                      <td key={c} className={cn('px-2 py-1 font-mono', badColumns.has(c) && 'text-danger underline decoration-wavy')}>
+                      <td
+                        key={c}
+                        className={cn(
+                          'px-2 py-1 font-mono',
+                          badColumns.has(c) && 'text-danger underline decoration-wavy',
+                        )}
+                      >
                         {r.values[c] ?? ''}
                       </td>
                     ))}

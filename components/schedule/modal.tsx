@@ -52,7 +52,12 @@ export function Modal({
               {title}
             </h2>
             {dismissable ? (
-              <button type="button" onClick={onClose} className="px-2 text-muted hover:text-ink" aria-label="Close">
+              <button
+                type="button"
+                onClick={onClose}
+                className="px-2 text-muted hover:text-ink"
+                aria-label="Close"
+              >
                 ✕
               </button>
             ) : null}

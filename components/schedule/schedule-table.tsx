@@ -13,13 +13,29 @@ import {
 } from '@tanstack/react-table';
 import { useVirtualizer } from '@tanstack/react-virtual';
 import { usePathname, useRouter, useSearchParams } from 'next/navigation';
-import { Fragment, useCallback, useEffect, useMemo, useRef, useState, type KeyboardEvent } from 'react';
+import {
+  memo,
+  useCallback,
+  useEffect,
+  useLayoutEffect,
+  useMemo,
+  useRef,
+  useState,
+  type KeyboardEvent,
+} from 'react';
 import { Button } from '@/components/ui/button';
 import { CIRCUIT_CLASSES } from '@/models/enums';
 import { cn } from '@/lib/utils';
 import { ClassMark } from '@/components/strip/class-glyph';
 import type { TerminalUpdate } from './api';
-import { COLUMN_BY_ID, DEFAULT_HIDDEN, SCHEDULE_COLUMNS, parseClipboardGrid, type LookupContext, type ScheduleColumn } from './columns';
+import {
+  COLUMN_BY_ID,
+  DEFAULT_HIDDEN,
+  SCHEDULE_COLUMNS,
+  parseClipboardGrid,
+  type LookupContext,
+  type ScheduleColumn,
+} from './columns';
 import { ConflictDialog } from './conflict-dialog';
 import type { ChannelRow, Strip, TerminalRow } from './types';
 import { useTerminalWrites, type ConflictItem } from './use-terminal-writes';
@@ -76,7 +92,8 @@ export function ScheduleTable({
   const sortId = search.get('sort');
   const sortDir = search.get('dir') === 'desc' ? 'desc' : 'asc';
   const hidden = useMemo(
-    () => (search.has('hide') ? (search.get('hide') ?? '').split(',').filter(Boolean) : DEFAULT_HIDDEN),
+    () =>
+      search.has('hide') ? (search.get('hide') ?? '').split(',').filter(Boolean) : DEFAULT_HIDDEN,
     [search],
   );
   const setParams = useCallback(
@@ -102,7 +119,10 @@ export function ScheduleTable({
 
   // Stable identities: react-table recomputes its row models (and would reset its own state)
   // whenever these change, so a fresh array each render would loop.
-  const sorting: SortingState = useMemo(() => (sortId ? [{ id: sortId, desc: sortDir === 'desc' }] : []), [sortId, sortDir]);
+  const sorting: SortingState = useMemo(
+    () => (sortId ? [{ id: sortId, desc: sortDir === 'desc' }] : []),
+    [sortId, sortDir],
+  );
   const visibility: VisibilityState = useMemo(
     () => Object.fromEntries(SCHEDULE_COLUMNS.map((c) => [c.id, !hidden.includes(c.id)])),
     [hidden],
@@ -125,7 +145,8 @@ export function ScheduleTable({
   const labels = useMemo(
     () => ({
       stripTag: (id: number) => strips.find((s) => s.id === id)?.tag,
-      channelTag: (id: number | null) => (id === null ? null : (channels.find((c) => c.id === id)?.tag ?? null)),
+      channelTag: (id: number | null) =>
+        id === null ? null : (channels.find((c) => c.id === id)?.tag ?? null),
     }),
     [strips, channels],
   );
@@ -180,15 +201,19 @@ export function ScheduleTable({
     getFilteredRowModel: getFilteredRowModel(),
     onSortingChange: (updater) => {
       const next = typeof updater === 'function' ? updater(sorting) : updater;
-      setParams({ sort: next[0]?.id ?? null, dir: next[0] ? (next[0].desc ? 'desc' : 'asc') : null });
+      setParams({
+        sort: next[0]?.id ?? null,
+        dir: next[0] ? (next[0].desc ? 'desc' : 'asc') : null,
+      });
     },
   });
 
   const rows = table.getRowModel().rows;
-  const visibleColumns: ScheduleColumn[] = table
-    .getVisibleLeafColumns()
-    .map((c) => COLUMN_BY_ID.get(c.id as ScheduleColumn['id'])!)
-    .filter(Boolean);
+  // Same order and choice as the table's visible leaf columns, with a stable identity for the memoised rows.
+  const visibleColumns: ScheduleColumn[] = useMemo(
+    () => SCHEDULE_COLUMNS.filter((c) => !hidden.includes(c.id)),
+    [hidden],
+  );
 
   // ---- selection, editing, errors
   const [active, setActive] = useState<ActiveCell | null>(null);
@@ -203,9 +228,11 @@ export function ScheduleTable({
   /** Values the user typed that were refused; shown in the cell until fixed or dropped. */
   const [pending, setPending] = useState<Record<number, Record<string, string>>>({});
   const [notice, setNotice] = useState<{ tone: 'error' | 'info'; text: string } | null>(null);
-  const [conflict, setConflict] = useState<{ message: string; items: ConflictItem[]; updates: TerminalUpdate[] } | null>(
-    null,
-  );
+  const [conflict, setConflict] = useState<{
+    message: string;
+    items: ConflictItem[];
+    updates: TerminalUpdate[];
+  } | null>(null);
   const [saving, setSaving] = useState(false);
 
   const scrollRef = useRef<HTMLDivElement>(null);
@@ -217,7 +244,7 @@ export function ScheduleTable({
       const id = rows[index]?.original.id;
       return ROW_HEIGHT + (id !== undefined && rowErrors[id] ? ERROR_LINE : 0);
     },
-    overscan: 12,
+    overscan: 8,
   });
   useEffect(() => virtualizer.measure(), [rowErrors, virtualizer]);
 
@@ -244,7 +271,10 @@ export function ScheduleTable({
     });
   };
 
-  const applyOutcome = async (updates: TerminalUpdate[], typed: Record<number, Record<string, string>>) => {
+  const applyOutcome = async (
+    updates: TerminalUpdate[],
+    typed: Record<number, Record<string, string>>,
+  ) => {
     setSaving(true);
     const outcome = await save(updates);
     setSaving(false);
@@ -252,7 +282,9 @@ export function ScheduleTable({
       setPending((p) => dropKeys(p, typed));
       setRowErrors((e) => dropKeys(e, typed));
       setNotice(
-        updates.length > 1 ? { tone: 'info', text: `${updates.length} terminals saved together.` } : null,
+        updates.length > 1
+          ? { tone: 'info', text: `${updates.length} terminals saved together.` }
+          : null,
       );
       return;
     }
@@ -297,12 +329,16 @@ export function ScheduleTable({
       }
     }
     const updates: TerminalUpdate[] = [...changesById.values()]
-      .filter(({ row, changes }) => Object.entries(changes).some(([k, v]) => row[k as keyof TerminalRow] !== v))
+      .filter(({ row, changes }) =>
+        Object.entries(changes).some(([k, v]) => row[k as keyof TerminalRow] !== v),
+      )
       .map(({ row, changes }) => ({ id: row.id, version: row.version, changes }));
     return { updates, errors, typed };
   };
 
-  const commitCells = async (cells: { row: TerminalRow; column: ScheduleColumn; text: string }[]) => {
+  const commitCells = async (
+    cells: { row: TerminalRow; column: ScheduleColumn; text: string }[],
+  ) => {
     const { updates, errors, typed } = buildUpdates(cells);
     if (Object.keys(errors).length > 0) {
       setPending((p) => mergeNested(p, typed));
@@ -324,7 +360,8 @@ export function ScheduleTable({
 
   const activeRow = active ? rows[active.row]?.original : undefined;
   const activeColumn = active ? visibleColumns[active.col] : undefined;
-  const cellText = (row: TerminalRow, column: ScheduleColumn) => pending[row.id]?.[column.id] ?? column.text(row);
+  const cellText = (row: TerminalRow, column: ScheduleColumn) =>
+    pending[row.id]?.[column.id] ?? column.text(row);
 
   const startEdit = (initial?: string) => {
     if (!canWrite) {
@@ -341,7 +378,8 @@ export function ScheduleTable({
     setEditing(null);
     then();
     gridRef.current?.focus();
-    if (text === cellText(activeRow, activeColumn) && !pending[activeRow.id]?.[activeColumn.id]) return;
+    if (text === cellText(activeRow, activeColumn) && !pending[activeRow.id]?.[activeColumn.id])
+      return;
     await commitCells([{ row: activeRow, column: activeColumn, text }]);
   };
 
@@ -401,11 +439,17 @@ export function ScheduleTable({
     if (editing !== null) return;
     e.preventDefault();
     if (!canWrite) {
-      setNotice({ tone: 'info', text: 'Your role sees this schedule read-only; nothing was pasted.' });
+      setNotice({
+        tone: 'info',
+        text: 'Your role sees this schedule read-only; nothing was pasted.',
+      });
       return;
     }
     if (!active) {
-      setNotice({ tone: 'info', text: 'Select the cell where the pasted block should start, then paste.' });
+      setNotice({
+        tone: 'info',
+        text: 'Select the cell where the pasted block should start, then paste.',
+      });
       return;
     }
     const grid = parseClipboardGrid(e.clipboardData.getData('text/plain'));
@@ -419,7 +463,11 @@ export function ScheduleTable({
       return;
     }
     const cells = grid.flatMap((line, i) =>
-      line.map((text, j) => ({ row: rows[active.row + i].original, column: visibleColumns[active.col + j], text })),
+      line.map((text, j) => ({
+        row: rows[active.row + i].original,
+        column: visibleColumns[active.col + j],
+        text,
+      })),
     );
     void commitCells(cells);
   };
@@ -437,22 +485,52 @@ export function ScheduleTable({
   const keepMine = async () => {
     if (!conflict) return;
     const current = new Map(conflict.items.map((c) => [c.id, c.current]));
-    const again = conflict.updates.map((u) => ({ ...u, version: current.get(u.id)?.version ?? u.version }));
+    const again = conflict.updates.map((u) => ({
+      ...u,
+      version: current.get(u.id)?.version ?? u.version,
+    }));
     adopt(conflict.items.map((c) => c.current));
     setConflict(null);
-    const typed = Object.fromEntries(Object.entries(pending).filter(([id]) => current.has(Number(id))));
+    const typed = Object.fromEntries(
+      Object.entries(pending).filter(([id]) => current.has(Number(id))),
+    );
     await applyOutcome(again, typed);
   };
+
+  // Rows are memoised; they get one stable object whose methods call the latest handlers.
+  const latest = useRef({ finishEdit, move, cancelEdit, setEditing, onSelectTerminal, canWrite });
+  useLayoutEffect(() => {
+    latest.current = { finishEdit, move, cancelEdit, setEditing, onSelectTerminal, canWrite };
+  });
+  const rowActions = useMemo<RowActions>(
+    () => ({
+      select: (row, col) => setActive({ row, col }),
+      editAt: (row, col, text) => {
+        setActive({ row, col });
+        if (latest.current.canWrite) latest.current.setEditing(text);
+      },
+      open: (id) => latest.current.onSelectTerminal?.(id),
+      change: (value) => latest.current.setEditing(value),
+      commit: (dr, dc) => void latest.current.finishEdit(() => latest.current.move(dr, dc)),
+      cancel: () => latest.current.cancelEdit(),
+    }),
+    [],
+  );
 
   const virtualItems = virtualizer.getVirtualItems();
   const paddingTop = virtualItems[0]?.start ?? 0;
   const paddingBottom = virtualizer.getTotalSize() - (virtualItems.at(-1)?.end ?? 0);
   const totalWidth = ROW_NUMBER_WIDTH + visibleColumns.reduce((s, c) => s + c.width, 0);
-  const activeCellId = active && activeColumn && activeRow ? `cell-${activeRow.id}-${activeColumn.id}` : undefined;
+  const activeCellId =
+    active && activeColumn && activeRow ? `cell-${activeRow.id}-${activeColumn.id}` : undefined;
 
   return (
     <div className="space-y-2">
-      <div className="flex flex-wrap items-end gap-2" role="search" aria-label="Filter the schedule">
+      <div
+        className="flex flex-wrap items-end gap-2"
+        role="search"
+        aria-label="Filter the schedule"
+      >
         <label className="flex flex-col text-xs text-muted">
           Find
           <input
@@ -505,7 +583,9 @@ export function ScheduleTable({
                   type="checkbox"
                   checked={!hidden.includes(c.id)}
                   onChange={(e) => {
-                    const next = e.target.checked ? hidden.filter((h) => h !== c.id) : [...hidden, c.id];
+                    const next = e.target.checked
+                      ? hidden.filter((h) => h !== c.id)
+                      : [...hidden, c.id];
                     setParams({ hide: next.join(',') || ',' });
                   }}
                 />
@@ -538,11 +618,18 @@ export function ScheduleTable({
           role={notice.tone === 'error' ? 'alert' : 'status'}
           className={cn(
             'flex items-start justify-between gap-2 rounded-sm border p-2 text-sm',
-            notice.tone === 'error' ? 'border-danger bg-danger-soft text-danger' : 'border-line bg-paper text-ink',
+            notice.tone === 'error'
+              ? 'border-danger bg-danger-soft text-danger'
+              : 'border-line bg-paper text-ink',
           )}
         >
           <span>{notice.text}</span>
-          <button type="button" className="text-muted" aria-label="Dismiss" onClick={() => setNotice(null)}>
+          <button
+            type="button"
+            className="text-muted"
+            aria-label="Dismiss"
+            onClick={() => setNotice(null)}
+          >
             ✕
           </button>
         </p>
@@ -579,7 +666,10 @@ export function ScheduleTable({
             </colgroup>
             <thead className="sticky top-0 z-10 bg-paper">
               <tr role="row">
-                <th className="border-b border-line px-1 text-right text-xs font-normal text-muted" aria-label="Row">
+                <th
+                  className="border-b border-line px-1 text-right text-xs font-normal text-muted"
+                  aria-label="Row"
+                >
                   #
                 </th>
                 {table.getHeaderGroups()[0].headers.map((header) => {
@@ -589,7 +679,9 @@ export function ScheduleTable({
                     <th
                       key={header.id}
                       role="columnheader"
-                      aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : 'none'}
+                      aria-sort={
+                        sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : 'none'
+                      }
                       title={col.hint}
                       className="border-b border-line p-0 text-left font-mono text-xs font-medium"
                     >
@@ -597,7 +689,10 @@ export function ScheduleTable({
                         type="button"
                         tabIndex={-1}
                         onClick={header.column.getToggleSortingHandler()}
-                        className={cn('flex h-8 w-full items-center gap-1 px-2 hover:bg-accent-soft', col.align === 'right' && 'justify-end')}
+                        className={cn(
+                          'flex h-8 w-full items-center gap-1 px-2 hover:bg-accent-soft',
+                          col.align === 'right' && 'justify-end',
+                        )}
                       >
                         {flexRender(header.column.columnDef.header, header.getContext())}
                         <span aria-hidden className="text-accent">
@@ -617,99 +712,21 @@ export function ScheduleTable({
               ) : null}
               {virtualItems.map((v) => {
                 const row = rows[v.index].original;
-                const errors = rowErrors[row.id];
                 const isActiveRow = active?.row === v.index;
                 return (
-                  <Fragment key={row.id}>
-                    <tr
-                      role="row"
-                      aria-rowindex={v.index + 2}
-                      data-terminal-id={row.id}
-                      className={cn(
-                        'border-b border-line',
-                        isActiveRow && 'bg-accent-soft/40',
-                        selectedTerminalId === row.id && 'bg-accent-soft',
-                        errors && 'bg-danger-soft/50',
-                      )}
-                      style={{ height: ROW_HEIGHT }}
-                    >
-                      <td className="px-1 text-right font-mono text-xs text-muted">
-                        {onSelectTerminal ? (
-                          <button
-                            type="button"
-                            tabIndex={-1}
-                            className="hover:text-accent"
-                            title="Show on the strip drawing"
-                            onClick={() => onSelectTerminal(row.id)}
-                          >
-                            {v.index + 1}
-                          </button>
-                        ) : (
-                          v.index + 1
-                        )}
-                      </td>
-                      {visibleColumns.map((column, colIndex) => {
-                        const isActive = isActiveRow && active?.col === colIndex;
-                        const error = errors?.[column.id];
-                        const text = cellText(row, column);
-                        return (
-                          <td
-                            key={column.id}
-                            id={`cell-${row.id}-${column.id}`}
-                            role="gridcell"
-                            aria-selected={isActive}
-                            aria-invalid={error ? true : undefined}
-                            aria-describedby={error ? `err-${row.id}` : undefined}
-                            data-column={column.id}
-                            onMouseDown={() => setActive({ row: v.index, col: colIndex })}
-                            onDoubleClick={() => {
-                              setActive({ row: v.index, col: colIndex });
-                              if (canWrite) setEditing(text);
-                            }}
-                            className={cn(
-                              'truncate px-2 font-mono text-[13px]',
-                              column.align === 'right' && 'text-right',
-                              isActive && 'outline-2 -outline-offset-2 outline-accent',
-                              error && 'text-danger underline decoration-danger decoration-wavy',
-                            )}
-                          >
-                            {isActive && editing !== null ? (
-                              <CellEditor
-                                column={column}
-                                value={editing}
-                                onChange={setEditing}
-                                onCommit={(dr, dc) => void finishEdit(() => move(dr, dc))}
-                                onCancel={cancelEdit}
-                              />
-                            ) : column.id === 'circuit_class' && !error ? (
-                              <span className="flex items-center gap-1">
-                                <ClassMark value={row.circuitClass} />
-                                {text}
-                              </span>
-                            ) : (
-                              text
-                            )}
-                          </td>
-                        );
-                      })}
-                    </tr>
-                    {errors ? (
-                      <tr aria-live="polite" className="bg-danger-soft/50" style={{ height: ERROR_LINE }}>
-                        <td />
-                        <td
-                          id={`err-${row.id}`}
-                          colSpan={visibleColumns.length}
-                          className="truncate px-2 text-xs text-danger"
-                          data-testid="row-error"
-                        >
-                          Row {v.index + 1} ({row.label}):{' '}
-                          {Object.entries(errors)
-                            .map(([col, message]) => (col === '_' ? message : `${col} — ${message}`))
-                            .join(' · ')}
-                        </td>
-                      </tr>
-                    ) : null}
-                  </Fragment>
+                  <ScheduleRow
+                    key={row.id}
+                    row={row}
+                    index={v.index}
+                    columns={visibleColumns}
+                    activeCol={isActiveRow ? (active?.col ?? null) : null}
+                    editing={isActiveRow ? editing : null}
+                    errors={rowErrors[row.id]}
+                    pending={pending[row.id]}
+                    selected={selectedTerminalId === row.id}
+                    canOpen={!!onSelectTerminal}
+                    actions={rowActions}
+                  />
                 );
               })}
               {paddingBottom > 0 ? (
@@ -721,14 +738,17 @@ export function ScheduleTable({
           </table>
           {rows.length === 0 ? (
             <p className="p-4 text-sm text-muted">
-              {terminals.length === 0 ? 'No terminals in this cabinet yet.' : 'No terminal matches the filters.'}
+              {terminals.length === 0
+                ? 'No terminals in this cabinet yet.'
+                : 'No terminal matches the filters.'}
             </p>
           ) : null}
         </div>
       </div>
       <p className="text-xs text-muted">
-        Arrows move · Enter or typing edits · Tab/Enter saves and moves · Escape cancels · paste a block copied from a
-        spreadsheet into the selected cell to fill down and right (saved all together, or not at all).
+        Arrows move · Enter or typing edits · Tab/Enter saves and moves · Escape cancels · paste a
+        block copied from a spreadsheet into the selected cell to fill down and right (saved all
+        together, or not at all).
       </p>
 
       <ConflictDialog
@@ -741,6 +761,130 @@ export function ScheduleTable({
     </div>
   );
 }
+
+interface RowActions {
+  select: (row: number, col: number) => void;
+  editAt: (row: number, col: number, text: string) => void;
+  open: (terminalId: number) => void;
+  change: (value: string) => void;
+  commit: (dr: number, dc: number) => void;
+  cancel: () => void;
+}
+
+/** One schedule row (and its error line); memoised so scrolling renders only the rows that appear. */
+const ScheduleRow = memo(function ScheduleRow({
+  row,
+  index,
+  columns,
+  activeCol,
+  editing,
+  errors,
+  pending,
+  selected,
+  canOpen,
+  actions,
+}: {
+  row: TerminalRow;
+  index: number;
+  columns: ScheduleColumn[];
+  activeCol: number | null;
+  editing: string | null;
+  errors: Record<string, string> | undefined;
+  pending: Record<string, string> | undefined;
+  selected: boolean;
+  canOpen: boolean;
+  actions: RowActions;
+}) {
+  return (
+    <>
+      <tr
+        role="row"
+        aria-rowindex={index + 2}
+        data-terminal-id={row.id}
+        className={cn(
+          'border-b border-line',
+          activeCol !== null && 'bg-accent-soft/40',
+          selected && 'bg-accent-soft',
+          errors && 'bg-danger-soft/50',
+        )}
+        style={{ height: ROW_HEIGHT }}
+      >
+        <td className="px-1 text-right font-mono text-xs text-muted">
+          {canOpen ? (
+            <button
+              type="button"
+              tabIndex={-1}
+              className="hover:text-accent"
+              title="Show on the strip drawing"
+              onClick={() => actions.open(row.id)}
+            >
+              {index + 1}
+            </button>
+          ) : (
+            index + 1
+          )}
+        </td>
+        {columns.map((column, colIndex) => {
+          const isActive = activeCol === colIndex;
+          const error = errors?.[column.id];
+          const text = pending?.[column.id] ?? column.text(row);
+          return (
+            <td
+              key={column.id}
+              id={`cell-${row.id}-${column.id}`}
+              role="gridcell"
+              aria-selected={isActive}
+              aria-invalid={error ? true : undefined}
+              aria-describedby={error ? `err-${row.id}` : undefined}
+              data-column={column.id}
+              onMouseDown={() => actions.select(index, colIndex)}
+              onDoubleClick={() => actions.editAt(index, colIndex, text)}
+              className={cn(
+                'truncate px-2 font-mono text-[13px]',
+                column.align === 'right' && 'text-right',
+                isActive && 'outline-2 -outline-offset-2 outline-accent',
+                error && 'text-danger underline decoration-danger decoration-wavy',
+              )}
+            >
+              {isActive && editing !== null ? (
+                <CellEditor
+                  column={column}
+                  value={editing}
+                  onChange={actions.change}
+                  onCommit={actions.commit}
+                  onCancel={actions.cancel}
+                />
+              ) : column.id === 'circuit_class' && !error ? (
+                <span className="flex items-center gap-1">
+                  <ClassMark value={row.circuitClass} />
+                  {text}
+                </span>
+              ) : (
+                text
+              )}
+            </td>
+          );
+        })}
+      </tr>
+      {errors ? (
+        <tr aria-live="polite" className="bg-danger-soft/50" style={{ height: ERROR_LINE }}>
+          <td />
+          <td
+            id={`err-${row.id}`}
+            colSpan={columns.length}
+            className="truncate px-2 text-xs text-danger"
+            data-testid="row-error"
+          >
+            Row {index + 1} ({row.label}):{' '}
+            {Object.entries(errors)
+              .map(([col, message]) => (col === '_' ? message : `${col} — ${message}`))
+              .join(' · ')}
+          </td>
+        </tr>
+      ) : null}
+    </>
+  );
+});
 
 function CellEditor({
   column,
@@ -799,11 +943,16 @@ function CellEditor({
   );
 }
 
-function dropKeys<T>(map: Record<number, Record<string, T>>, keysOf: Record<number, Record<string, unknown>>) {
+function dropKeys<T>(
+  map: Record<number, Record<string, T>>,
+  keysOf: Record<number, Record<string, unknown>>,
+) {
   const out: Record<number, Record<string, T>> = {};
   for (const [id, fields] of Object.entries(map)) {
     const drop = keysOf[Number(id)];
-    const kept = Object.fromEntries(Object.entries(fields).filter(([k]) => !drop || !(k in drop) ) ) as Record<string, T>;
+    const kept = Object.fromEntries(
+      Object.entries(fields).filter(([k]) => !drop || !(k in drop)),
+    ) as Record<string, T>;
     // A whole-row message ('_') is about the row as sent: any new attempt replaces it.
     if (drop) delete kept._;
     if (Object.keys(kept).length > 0) out[Number(id)] = kept;
@@ -812,11 +961,18 @@ function dropKeys<T>(map: Record<number, Record<string, T>>, keysOf: Record<numb
 }
 
 function omitIds<T>(map: Record<number, T>, ids: Record<number, unknown>) {
-  return Object.fromEntries(Object.entries(map).filter(([id]) => !(Number(id) in ids))) as Record<number, T>;
+  return Object.fromEntries(Object.entries(map).filter(([id]) => !(Number(id) in ids))) as Record<
+    number,
+    T
+  >;
 }
 
-function mergeNested(a: Record<number, Record<string, string>>, b: Record<number, Record<string, string>>) {
+function mergeNested(
+  a: Record<number, Record<string, string>>,
+  b: Record<number, Record<string, string>>,
+) {
   const out = { ...a };
-  for (const [id, fields] of Object.entries(b)) out[Number(id)] = { ...(out[Number(id)] ?? {}), ...fields };
+  for (const [id, fields] of Object.entries(b))
+    out[Number(id)] = { ...(out[Number(id)] ?? {}), ...fields };
   return out;
 }

@@ -19,8 +19,19 @@ export interface ConflictItem {
 
 export type WriteOutcome =
   | { ok: true; rows: TerminalRow[] }
-  | { ok: false; kind: 'conflict'; message: string; conflicts: ConflictItem[]; updates: TerminalUpdate[] }
-  | { ok: false; kind: 'invalid'; message: string; fieldErrors: Record<number, Record<string, string>> }
+  | {
+      ok: false;
+      kind: 'conflict';
+      message: string;
+      conflicts: ConflictItem[];
+      updates: TerminalUpdate[];
+    }
+  | {
+      ok: false;
+      kind: 'invalid';
+      message: string;
+      fieldErrors: Record<number, Record<string, string>>;
+    }
   | { ok: false; kind: 'other'; message: string };
 
 /**
@@ -31,7 +42,10 @@ export type WriteOutcome =
 export function useTerminalWrites(
   projectId: number,
   cabinetId: number,
-  labels: { stripTag: (id: number) => string | undefined; channelTag: (id: number | null) => string | null },
+  labels: {
+    stripTag: (id: number) => string | undefined;
+    channelTag: (id: number | null) => string | null;
+  },
 ) {
   const queryClient = useQueryClient();
   const key = keys.terminals(projectId, cabinetId);
@@ -50,8 +64,10 @@ export function useTerminalWrites(
             const u = byId.get(row.id);
             if (!u) return row;
             const next = { ...row, ...u.changes };
-            if (u.changes.stripId !== undefined) next.stripTag = labels.stripTag(u.changes.stripId) ?? row.stripTag;
-            if (u.changes.channelId !== undefined) next.channelTag = labels.channelTag(u.changes.channelId);
+            if (u.changes.stripId !== undefined)
+              next.stripTag = labels.stripTag(u.changes.stripId) ?? row.stripTag;
+            if (u.changes.channelId !== undefined)
+              next.channelTag = labels.channelTag(u.changes.channelId);
             return next;
           }),
         });
@@ -89,9 +105,18 @@ export function useTerminalWrites(
           return { ok: false, kind: 'conflict', message: error.message, conflicts, updates };
         }
         if (error instanceof ApiError && error.status === 422) {
-          return { ok: false, kind: 'invalid', message: error.message, fieldErrors: mapFieldErrors(error, updates) };
+          return {
+            ok: false,
+            kind: 'invalid',
+            message: error.message,
+            fieldErrors: mapFieldErrors(error, updates),
+          };
         }
-        return { ok: false, kind: 'other', message: error instanceof Error ? error.message : String(error) };
+        return {
+          ok: false,
+          kind: 'other',
+          message: error instanceof Error ? error.message : String(error),
+        };
       }
     },
     // eslint-disable-next-line react-hooks/exhaustive-deps
@@ -118,7 +143,10 @@ export function useTerminalWrites(
  * 422 field errors → terminal id → field → message. Bulk keys read
  * "updates.<i>.changes.<field>"; a single update's keys are the field itself.
  */
-function mapFieldErrors(error: ApiError, updates: TerminalUpdate[]): Record<number, Record<string, string>> {
+function mapFieldErrors(
+  error: ApiError,
+  updates: TerminalUpdate[],
+): Record<number, Record<string, string>> {
   const out: Record<number, Record<string, string>> = {};
   for (const [key, messages] of Object.entries(error.fieldErrors)) {
     const bulk = /^updates\.(\d+)\.(?:changes\.)?(.+)$/.exec(key);
@@ -127,6 +155,7 @@ function mapFieldErrors(error: ApiError, updates: TerminalUpdate[]): Record<numb
     if (!update) continue;
     (out[update.id] ??= {})[field] = messages[0] ?? 'invalid';
   }
-  if (Object.keys(out).length === 0 && updates.length === 1) out[updates[0].id] = { _: error.message };
+  if (Object.keys(out).length === 0 && updates.length === 1)
+    out[updates[0].id] = { _: error.message };
   return out;
 }

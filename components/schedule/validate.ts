@@ -6,7 +6,10 @@
 import { terminalChangesSchema, terminalFactsProblems } from '@/lib/validation/terminal';
 import type { TerminalFields, TerminalRow } from './types';
 
-export function validateTerminalChanges(row: TerminalRow, changes: Partial<TerminalFields>): Record<string, string> {
+export function validateTerminalChanges(
+  row: TerminalRow,
+  changes: Partial<TerminalFields>,
+): Record<string, string> {
   const out: Record<string, string> = {};
   const parsed = terminalChangesSchema.safeParse(changes);
   if (!parsed.success) {

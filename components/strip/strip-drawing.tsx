@@ -130,29 +130,31 @@ export function StripDrawing({
 
   const layouts = useMemo(() => {
     const byStrip = new Map<number, TerminalRow[]>();
-    for (const t of terminals) (byStrip.get(t.stripId) ?? byStrip.set(t.stripId, []).get(t.stripId)!).push(t);
-    let top = 0;
-    return [...strips]
-      .sort((a, b) => a.order - b.order || a.tag.localeCompare(b.tag))
-      .map((strip): StripLayout => {
-        const list = byStrip.get(strip.id) ?? [];
-        const maxPosition = Math.max(0, ...list.map((t) => t.position));
-        const levels = Math.max(1, ...list.map((t) => t.level));
-        const groups = new Map<string, TerminalRow[]>();
-        for (const t of list) if (t.bridgeGroup) (groups.get(t.bridgeGroup) ?? groups.set(t.bridgeGroup, []).get(t.bridgeGroup)!).push(t);
-        const bridges = [...groups.entries()]
-          .filter(([, members]) => members.length > 1)
-          .map(([group, members]) => ({
-            group,
-            from: Math.min(...members.map((m) => m.position)),
-            to: Math.max(...members.map((m) => m.position)),
-            members: members.map((m) => m.position),
-          }));
-        const height = BRIDGE_H + levels * TILE_H + FOOT_H;
-        const layout = { strip, terminals: list, maxPosition, levels, top, height, bridges };
-        top += height + STRIP_GAP;
-        return layout;
-      });
+    for (const t of terminals)
+      (byStrip.get(t.stripId) ?? byStrip.set(t.stripId, []).get(t.stripId)!).push(t);
+    const sorted = [...strips].sort((a, b) => a.order - b.order || a.tag.localeCompare(b.tag));
+    const out: StripLayout[] = [];
+    for (const strip of sorted) {
+      const top = out.length ? out[out.length - 1].top + out[out.length - 1].height + STRIP_GAP : 0;
+      const list = byStrip.get(strip.id) ?? [];
+      const maxPosition = Math.max(0, ...list.map((t) => t.position));
+      const levels = Math.max(1, ...list.map((t) => t.level));
+      const groups = new Map<string, TerminalRow[]>();
+      for (const t of list)
+        if (t.bridgeGroup)
+          (groups.get(t.bridgeGroup) ?? groups.set(t.bridgeGroup, []).get(t.bridgeGroup)!).push(t);
+      const bridges = [...groups.entries()]
+        .filter(([, members]) => members.length > 1)
+        .map(([group, members]) => ({
+          group,
+          from: Math.min(...members.map((m) => m.position)),
+          to: Math.max(...members.map((m) => m.position)),
+          members: members.map((m) => m.position),
+        }));
+      const height = BRIDGE_H + levels * TILE_H + FOOT_H;
+      out.push({ strip, terminals: list, maxPosition, levels, top, height, bridges });
+    }
+    return out;
   }, [strips, terminals]);
 
   // Centre of each tile, for the exposure overlay.
@@ -170,7 +172,10 @@ export function StripDrawing({
   }, [layouts]);
 
   const width = TAG_W + Math.max(8, ...layouts.map((l) => l.maxPosition)) * PITCH + 16;
-  const height = Math.max(60, layouts.reduce((h, l) => h + l.height + STRIP_GAP, 0));
+  const height = Math.max(
+    60,
+    layouts.reduce((h, l) => h + l.height + STRIP_GAP, 0),
+  );
   const usedVerdicts = [...new Set(Object.values(verdicts))] as Verdict[];
 
   const onKey = (e: KeyboardEvent<SVGGElement>, id: number) => {
@@ -211,14 +216,22 @@ export function StripDrawing({
         ) : null}
         {usedVerdicts.map((v) => (
           <span key={v} className="flex items-center gap-1">
-            <span className={cn('inline-block rounded-[2px] px-1 font-mono text-[10px] text-accent-ink', `bg-verdict-${v}`)}>
+            <span
+              className={cn(
+                'inline-block rounded-[2px] px-1 font-mono text-[10px] text-accent-ink',
+                `bg-verdict-${v}`,
+              )}
+            >
               {VERDICT_MARK[v]}
             </span>
             {v}
           </span>
         ))}
       </figcaption>
-      <div className="overflow-x-auto overscroll-x-contain rounded-sm border border-line bg-panel" data-testid="strip-drawing">
+      <div
+        className="overflow-x-auto overscroll-x-contain rounded-sm border border-line bg-panel"
+        data-testid="strip-drawing"
+      >
         <svg
           width={width}
           height={height}
@@ -238,7 +251,11 @@ export function StripDrawing({
                 className="fill-rail"
                 opacity={0.35}
               />
-              <text x={8} y={l.top + BRIDGE_H + 18} className="fill-ink font-mono text-[15px] font-semibold">
+              <text
+                x={8}
+                y={l.top + BRIDGE_H + 18}
+                className="fill-ink font-mono text-[15px] font-semibold"
+              >
                 {l.strip.tag}
               </text>
               {l.strip.name ? (
@@ -327,7 +344,13 @@ export function StripDrawing({
                       data-terminal-id={t.id}
                     >
                       <title>{describe(t)}</title>
-                      <rect x={x} y={y} width={PITCH} height={TILE_H - 6} className="fill-transparent" />
+                      <rect
+                        x={x}
+                        y={y}
+                        width={PITCH}
+                        height={TILE_H - 6}
+                        className="fill-transparent"
+                      />
                       <rect
                         x={x + PITCH / 2 - 5}
                         y={l.top + 2}
@@ -337,7 +360,15 @@ export function StripDrawing({
                         className="fill-circuit-barrier"
                       />
                       {selected || focused ? (
-                        <rect x={x + 2} y={y + 1} width={PITCH - 4} height={TILE_H - 8} rx={4} className="fill-none stroke-accent" strokeWidth={3} />
+                        <rect
+                          x={x + 2}
+                          y={y + 1}
+                          width={PITCH - 4}
+                          height={TILE_H - 8}
+                          rx={4}
+                          className="fill-none stroke-accent"
+                          strokeWidth={3}
+                        />
                       ) : null}
                     </g>
                   );
@@ -358,7 +389,14 @@ export function StripDrawing({
                   >
                     <title>{describe(t, verdict)}</title>
                     {/* the tile: a tint of the class colour, outlined in it */}
-                    <rect x={x + 3} y={y + 2} width={PITCH - 6} height={TILE_H - 8} rx={4} className="fill-panel" />
+                    <rect
+                      x={x + 3}
+                      y={y + 2}
+                      width={PITCH - 6}
+                      height={TILE_H - 8}
+                      rx={4}
+                      className="fill-panel"
+                    />
                     <rect
                       x={x + 3}
                       y={y + 2}
@@ -372,7 +410,14 @@ export function StripDrawing({
                     />
                     {/* a solid band on hazards: the strongest cue after the glyph */}
                     {t.circuitClass === 'hazard' ? (
-                      <rect x={x + 3} y={y + 2} width={PITCH - 6} height={5} rx={2} className="fill-circuit-hazard" />
+                      <rect
+                        x={x + 3}
+                        y={y + 2}
+                        width={PITCH - 6}
+                        height={5}
+                        rx={2}
+                        className="fill-circuit-hazard"
+                      />
                     ) : null}
                     <ClassGlyph cls={t.circuitClass} x={x + 13} y={y + 17} size={11} />
                     <text
@@ -383,7 +428,12 @@ export function StripDrawing({
                     >
                       {shortName(t)}
                     </text>
-                    <text x={x + PITCH / 2} y={y + 40} textAnchor="middle" className="fill-ink font-mono text-[9.5px]">
+                    <text
+                      x={x + PITCH / 2}
+                      y={y + 40}
+                      textAnchor="middle"
+                      className="fill-ink font-mono text-[9.5px]"
+                    >
                       {voltageText(t)}
                     </text>
                     {verdict ? (
@@ -397,7 +447,14 @@ export function StripDrawing({
                           className={cn('fill-none', VERDICT_STROKE[verdict])}
                           strokeWidth={3}
                         />
-                        <rect x={x + PITCH - 17} y={y + TILE_H - 18} width={14} height={12} rx={2} className={VERDICT_FILL[verdict]} />
+                        <rect
+                          x={x + PITCH - 17}
+                          y={y + TILE_H - 18}
+                          width={14}
+                          height={12}
+                          rx={2}
+                          className={VERDICT_FILL[verdict]}
+                        />
                         <text
                           x={x + PITCH - 10}
                           y={y + TILE_H - 9}
@@ -431,7 +488,12 @@ export function StripDrawing({
                       </text>
                     ) : null}
                     {t.channelTag && t.level > 1 ? (
-                      <text x={x + PITCH / 2} y={y + 50} textAnchor="middle" className="fill-circuit-sensitive font-mono text-[8px]">
+                      <text
+                        x={x + PITCH / 2}
+                        y={y + 50}
+                        textAnchor="middle"
+                        className="fill-circuit-sensitive font-mono text-[8px]"
+                      >
                         {t.channelTag.length > 8 ? `${t.channelTag.slice(0, 7)}…` : t.channelTag}
                       </text>
                     ) : null}
@@ -462,7 +524,13 @@ export function StripDrawing({
                 d={d}
                 className="fill-none stroke-danger"
                 strokeWidth={e.likelihood === 'likely' ? 2.5 : 1.75}
-                strokeDasharray={e.likelihood === 'likely' ? undefined : e.likelihood === 'plausible' ? '6 4' : '2 4'}
+                strokeDasharray={
+                  e.likelihood === 'likely'
+                    ? undefined
+                    : e.likelihood === 'plausible'
+                      ? '6 4'
+                      : '2 4'
+                }
                 opacity={0.85}
                 pointerEvents="stroke"
               >

@@ -44,8 +44,13 @@ describe('guard recipe builder', () => {
     await page.getByRole('link', { name: 'New recipe' }).click();
     await page.waitForURL(/\/guards\/new$/);
 
-    await page.getByLabel('Start from a preset').selectOption({ label: '0–10 V analog voltage input' });
-    await page.getByTestId('typical-caution').filter({ hasText: "typical — verify against the actual part's datasheet" }).waitFor();
+    await page
+      .getByLabel('Start from a preset')
+      .selectOption({ label: '0–10 V analog voltage input' });
+    await page
+      .getByTestId('typical-caution')
+      .filter({ hasText: "typical — verify against the actual part's datasheet" })
+      .waitFor();
     await page.getByLabel('Name').fill('0–10 V input, 4k99 series');
 
     const series = page.getByRole('group', { name: 'Series element' });
@@ -69,16 +74,27 @@ describe('guard recipe builder', () => {
     const recipeId = Number(/\/guards\/(\d+)$/.exec(page.url())?.[1]);
 
     const res = await page.request.get(`${BASE_URL()}/api/projects/${project}/guard-recipes`);
-    const saved = ((await res.json()) as { items: Array<{ id: number; name: string; guard: { stages: Array<{ series: Record<string, number> }> } }> }).items.find(
-      (r) => r.id === recipeId,
-    )!;
+    const saved = (
+      (await res.json()) as {
+        items: Array<{
+          id: number;
+          name: string;
+          guard: { stages: Array<{ series: Record<string, number> }> };
+        }>;
+      }
+    ).items.find((r) => r.id === recipeId)!;
     expect(saved.name).toBe('0–10 V input, 4k99 series');
     // Stored in SI: 4k99 → 4990 Ω, 0.25W → 0.25 W (IEC 60062 RKM code for the first).
     expect(saved.guard.stages[0].series.resistance).toBe(4990);
     expect(saved.guard.stages[0].series.ratedPower).toBe(0.25);
 
     await page.reload();
-    expect(await page.getByRole('group', { name: 'Series element' }).getByLabel(/^Resistance/).inputValue()).toBe('4.99 kΩ');
+    expect(
+      await page
+        .getByRole('group', { name: 'Series element' })
+        .getByLabel(/^Resistance/)
+        .inputValue(),
+    ).toBe('4.99 kΩ');
     await page.getByTestId('guard-schematic').scrollIntoViewIfNeeded();
     await shot(page, 'guard-builder-1440');
     await context.close();
@@ -92,7 +108,13 @@ describe('guard recipe builder', () => {
     await page.getByRole('link', { name: '4–20 mA input with 250 Ω burden', exact: true }).click();
     await page.waitForURL(/\/guards\/\d+$/);
     await page.getByTestId('guard-schematic').waitFor();
-    expect(await page.getByRole('group', { name: 'Series element' }).first().getByLabel(/^Resistance/).isDisabled()).toBe(true);
+    expect(
+      await page
+        .getByRole('group', { name: 'Series element' })
+        .first()
+        .getByLabel(/^Resistance/)
+        .isDisabled(),
+    ).toBe(true);
     expect(await page.getByRole('button', { name: 'Save recipe' }).count()).toBe(0);
     await page.getByText('Your role sees guard recipes read-only.').waitFor();
     await shot(page, 'guard-recipe-technician-1024');

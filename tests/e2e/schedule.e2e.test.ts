@@ -22,7 +22,11 @@ interface Session {
 }
 
 /** A fresh browser context (its own cookies) signed in as one demo user. */
-async function session(browser: Browser, email: string, viewport = { width: 1440, height: 900 }): Promise<Session> {
+async function session(
+  browser: Browser,
+  email: string,
+  viewport = { width: 1440, height: 900 },
+): Promise<Session> {
   const context = await browser.newContext({ viewport });
   const page = await context.newPage();
   page.setDefaultTimeout(30_000);
@@ -64,15 +68,23 @@ interface ApiTerminal {
 }
 
 /** The cabinet's terminals as the server now holds them (through the signed-in page's cookies). */
-async function serverTerminals(page: Page, project: number, cabinet: number): Promise<ApiTerminal[]> {
-  const res = await page.request.get(`${BASE_URL()}/api/projects/${project}/cabinets/${cabinet}/terminals?pageSize=5000`);
+async function serverTerminals(
+  page: Page,
+  project: number,
+  cabinet: number,
+): Promise<ApiTerminal[]> {
+  const res = await page.request.get(
+    `${BASE_URL()}/api/projects/${project}/cabinets/${cabinet}/terminals?pageSize=5000`,
+  );
   if (!res.ok()) throw new Error(`terminals list answered ${res.status()}`);
   return ((await res.json()) as { items: ApiTerminal[] }).items;
 }
 
 /** The table cell of a terminal (by its label) in one of our columns. */
 function cell(page: Page, label: string, column: string) {
-  return page.locator(`tr:has(td[data-column="label"]:text-is("${label}")) td[data-column="${column}"]`);
+  return page.locator(
+    `tr:has(td[data-column="label"]:text-is("${label}")) td[data-column="${column}"]`,
+  );
 }
 
 /** A paste from a spreadsheet: tab-separated text delivered as a real paste event. */
@@ -80,7 +92,9 @@ async function pasteText(page: Page, text: string) {
   await page.getByRole('grid', { name: 'Terminal schedule' }).evaluate((grid, t) => {
     const data = new DataTransfer();
     data.setData('text/plain', t);
-    grid.dispatchEvent(new ClipboardEvent('paste', { clipboardData: data, bubbles: true, cancelable: true }));
+    grid.dispatchEvent(
+      new ClipboardEvent('paste', { clipboardData: data, bubbles: true, cancelable: true }),
+    );
   }, text);
 }
 
@@ -88,7 +102,9 @@ const SAMPLES = path.resolve('public/samples');
 
 /** Row numbers as the file shows them (header is row 1), found from the clean CSV of the same schedule. */
 function sampleRowOf(label: string): number {
-  const lines = readFileSync(path.join(SAMPLES, 'cabinet-sample.csv'), 'utf8').replace(/^\uFEFF/, '').split(/\r?\n/);
+  const lines = readFileSync(path.join(SAMPLES, 'cabinet-sample.csv'), 'utf8')
+    .replace(/^\uFEFF/, '')
+    .split(/\r?\n/);
   const index = lines.findIndex((line) => line.split(',')[4] === label);
   if (index < 1) throw new Error(`${label} is not in the sample`);
   return index + 1;
@@ -118,7 +134,9 @@ describe('terminal schedule', () => {
     const cabinet = cabinetIdOf(page);
 
     await page.getByRole('button', { name: 'Import CSV / XLSX' }).click();
-    await page.getByLabel('File to import').setInputFiles(path.join(SAMPLES, 'cabinet-sample-with-errors.xlsx'));
+    await page
+      .getByLabel('File to import')
+      .setInputFiles(path.join(SAMPLES, 'cabinet-sample-with-errors.xlsx'));
     await page.getByRole('button', { name: 'Read file' }).click();
     // Our column names are the file's headers, so the suggestion maps every one.
     await expectValue(page.getByLabel('Their column for circuit_class'), 'circuit_class');
@@ -126,35 +144,49 @@ describe('terminal schedule', () => {
 
     const errors = page.getByTestId('import-errors');
     await errors.waitFor();
-    const rows = await errors.locator('tbody tr').evaluateAll((trs) =>
-      trs.map((tr) => Array.from(tr.querySelectorAll('td')).map((td) => td.textContent ?? '')),
-    );
+    const rows = await errors
+      .locator('tbody tr')
+      .evaluateAll((trs) =>
+        trs.map((tr) => Array.from(tr.querySelectorAll('td')).map((td) => td.textContent ?? '')),
+      );
     const badRows = [...new Set(rows.map((r) => Number(r[0])))].sort((a, b) => a - b);
-    const expected = [sampleRowOf('X31:10'), sampleRowOf('X32:3'), sampleRowOf('X33:3.1')].sort((a, b) => a - b);
+    const expected = [sampleRowOf('X31:10'), sampleRowOf('X32:3'), sampleRowOf('X33:3.1')].sort(
+      (a, b) => a - b,
+    );
     expect(badRows).toEqual(expected);
     // Each names the column and why (the three spoilt cells of the sample file).
     const byRow = (label: string) => rows.filter((r) => Number(r[0]) === sampleRowOf(label));
     expect(byRow('X31:10').some((r) => r[1] === 'position')).toBe(true);
     expect(byRow('X32:3').some((r) => r[1] === 'circuit_class' && /mains/.test(r[2]))).toBe(true);
     expect(byRow('X33:3.1').some((r) => r[1] === 'voltage')).toBe(true);
-    await expect(page.getByTestId('import-summary').textContent()).resolves.toMatch(/3 with errors.*Nothing has been written/);
+    await expect(page.getByTestId('import-summary').textContent()).resolves.toMatch(
+      /3 with errors.*Nothing has been written/,
+    );
     expect(await page.getByRole('button', { name: /^Import \d+ rows$/ }).isDisabled()).toBe(true);
     expect(await serverTerminals(page, project, cabinet)).toHaveLength(0);
 
     await page.getByRole('button', { name: 'Choose the fixed file' }).click();
-    await page.getByLabel('File to import').setInputFiles(path.join(SAMPLES, 'cabinet-sample.xlsx'));
+    await page
+      .getByLabel('File to import')
+      .setInputFiles(path.join(SAMPLES, 'cabinet-sample.xlsx'));
     await page.getByRole('button', { name: 'Read file' }).click();
     await page.getByRole('button', { name: 'Check rows' }).click();
     await page.getByTestId('import-summary').waitFor();
     expect(await page.getByTestId('import-errors').count()).toBe(0);
-    const sampleRows = readFileSync(path.join(SAMPLES, 'cabinet-sample.csv'), 'utf8').trim().split(/\r?\n/).length - 1;
+    const sampleRows =
+      readFileSync(path.join(SAMPLES, 'cabinet-sample.csv'), 'utf8').trim().split(/\r?\n/).length -
+      1;
     await page.getByRole('button', { name: `Import ${sampleRows} rows` }).click();
-    await page.getByText(`Imported ${sampleRows} rows: ${sampleRows} terminals added, 0 updated.`).waitFor();
+    await page
+      .getByText(`Imported ${sampleRows} rows: ${sampleRows} terminals added, 0 updated.`)
+      .waitFor();
     await page.getByTestId('import-wizard').getByRole('button', { name: 'Close' }).click();
 
     const stored = await serverTerminals(page, project, cabinet);
     expect(stored).toHaveLength(sampleRows);
-    expect(stored.map((t) => t.label)).toEqual(expect.arrayContaining(['X31:10', 'X32:3', 'X33:3.1']));
+    expect(stored.map((t) => t.label)).toEqual(
+      expect.arrayContaining(['X31:10', 'X32:3', 'X33:3.1']),
+    );
     await page.getByText(`${sampleRows} of ${sampleRows} terminals`).waitFor();
     await context.close();
   });
@@ -169,16 +201,28 @@ describe('terminal schedule', () => {
     await page.keyboard.type('W-7713');
     await page.keyboard.press('Enter');
     await expectText(cell(page, 'X1:13', 'wire_no'), 'W-7713');
-    await waitForServer(page, project, cabinet, (ts) => ts.find((t) => t.label === 'X1:13')?.wireNumber === 'W-7713');
+    await waitForServer(
+      page,
+      project,
+      cabinet,
+      (ts) => ts.find((t) => t.label === 'X1:13')?.wireNumber === 'W-7713',
+    );
 
     // Arrow keys move the selection: up from X1:14's core lands on X1:13's core.
     await cell(page, 'X1:14', 'core').click();
     await page.keyboard.press('ArrowUp');
     await page.keyboard.type('3');
     await page.keyboard.press('Tab');
-    await waitForServer(page, project, cabinet, (ts) => ts.find((t) => t.label === 'X1:13')?.cableCore === '3');
+    await waitForServer(
+      page,
+      project,
+      cabinet,
+      (ts) => ts.find((t) => t.label === 'X1:13')?.cableCore === '3',
+    );
 
-    const before = (await serverTerminals(page, project, cabinet)).find((t) => t.label === 'X1:14')!;
+    const before = (await serverTerminals(page, project, cabinet)).find(
+      (t) => t.label === 'X1:14',
+    )!;
     await cell(page, 'X1:14', 'position').click();
     await page.keyboard.press('Enter');
     await page.keyboard.press('ControlOrMeta+a');
@@ -209,15 +253,26 @@ describe('terminal schedule', () => {
     await waitForServer(page, project, cabinet, (ts) => {
       const a = ts.find((t) => t.label === 'X1:13');
       const b = ts.find((t) => t.label === 'X1:14');
-      return a?.wireNumber === 'P-901' && b?.wireNumber === 'P-902' && a?.cableId === 'W-2199' && b?.cableId === 'W-2199';
+      return (
+        a?.wireNumber === 'P-901' &&
+        b?.wireNumber === 'P-902' &&
+        a?.cableId === 'W-2199' &&
+        b?.cableId === 'W-2199'
+      );
     });
     await expectText(cell(page, 'X1:14', 'cable'), 'W-2199');
 
     const before = await serverTerminals(page, project, cabinet);
     await cell(page, 'X1:13', 'circuit_class').click();
     await pasteText(page, 'earth\nmains\n');
-    await expectText(page.getByTestId('row-error').filter({ hasText: 'X1:14' }), 'circuit_class must be one of');
-    await expectText(page.getByRole('alert').filter({ hasText: 'nothing was saved' }), 'nothing was saved');
+    await expectText(
+      page.getByTestId('row-error').filter({ hasText: 'X1:14' }),
+      'circuit_class must be one of',
+    );
+    await expectText(
+      page.getByRole('alert').filter({ hasText: 'nothing was saved' }),
+      'nothing was saved',
+    );
     const after = await serverTerminals(page, project, cabinet);
     expect(after.find((t) => t.label === 'X1:13')).toEqual(before.find((t) => t.label === 'X1:13'));
     expect(after.find((t) => t.label === 'X1:14')).toEqual(before.find((t) => t.label === 'X1:14'));
@@ -238,7 +293,12 @@ describe('terminal schedule', () => {
     await first.page.keyboard.press('ControlOrMeta+a');
     await first.page.keyboard.type('FIRST-1');
     await first.page.keyboard.press('Enter');
-    await waitForServer(first.page, project, cabinet, (ts) => ts.find((t) => t.label === 'X2:6')?.wireNumber === 'FIRST-1');
+    await waitForServer(
+      first.page,
+      project,
+      cabinet,
+      (ts) => ts.find((t) => t.label === 'X2:6')?.wireNumber === 'FIRST-1',
+    );
 
     await cell(second.page, 'X2:6', 'wire_no').click();
     await second.page.keyboard.press('Enter');
@@ -252,7 +312,12 @@ describe('terminal schedule', () => {
     // The typed value stays on screen while the choice is open.
     await expectText(cell(second.page, 'X2:6', 'wire_no'), 'SECOND-2');
     await second.page.getByRole('button', { name: 'Keep mine and save again' }).click();
-    await waitForServer(second.page, project, cabinet, (ts) => ts.find((t) => t.label === 'X2:6')?.wireNumber === 'SECOND-2');
+    await waitForServer(
+      second.page,
+      project,
+      cabinet,
+      (ts) => ts.find((t) => t.label === 'X2:6')?.wireNumber === 'SECOND-2',
+    );
 
     // 2. Reload theirs: the second person sees the first person's value and nothing is overwritten.
     await cell(first.page, 'X2:6', 'core').click();
@@ -273,7 +338,9 @@ describe('terminal schedule', () => {
     await expectText(dialog, '“7”');
     await second.page.getByRole('button', { name: 'Reload theirs' }).click();
     await expectText(cell(second.page, 'X2:6', 'core'), '7');
-    const final = (await serverTerminals(second.page, project, cabinet)).find((t) => t.label === 'X2:6')!;
+    const final = (await serverTerminals(second.page, project, cabinet)).find(
+      (t) => t.label === 'X2:6',
+    )!;
     expect(final.cableCore).toBe('7');
     expect(final.wireNumber).toBe('SECOND-2');
     await first.context.close();
@@ -291,17 +358,24 @@ describe('terminal schedule', () => {
     await page.getByText('read-only for your role').first().waitFor();
     expect(await page.getByRole('button', { name: 'Import CSV / XLSX' }).count()).toBe(0);
     expect(await page.getByRole('button', { name: 'Add terminal' }).count()).toBe(0);
-    expect(await page.getByRole('grid', { name: 'Terminal schedule' }).getAttribute('aria-readonly')).toBe('true');
+    expect(
+      await page.getByRole('grid', { name: 'Terminal schedule' }).getAttribute('aria-readonly'),
+    ).toBe('true');
 
     await cell(page, 'X1:13', 'wire_no').click();
     await page.keyboard.press('Enter');
     expect(await page.getByRole('textbox', { name: 'Edit wire_no' }).count()).toBe(0);
     await page.getByText('Your role sees this schedule read-only.').waitFor();
 
-    const target = (await serverTerminals(page, project, cabinet)).find((t) => t.label === 'X1:13')!;
-    const res = await page.request.patch(`${BASE_URL()}/api/projects/${project}/terminals/${target.id}`, {
-      data: { version: target.version, wireNumber: 'TECH-1' },
-    });
+    const target = (await serverTerminals(page, project, cabinet)).find(
+      (t) => t.label === 'X1:13',
+    )!;
+    const res = await page.request.patch(
+      `${BASE_URL()}/api/projects/${project}/terminals/${target.id}`,
+      {
+        data: { version: target.version, wireNumber: 'TECH-1' },
+      },
+    );
     expect(res.status()).toBe(403);
     await context.close();
   });
@@ -340,6 +414,16 @@ async function expectValue(locator: Locator, value: string) {
   await expect.poll(() => locator.inputValue(), { timeout: 20_000 }).toBe(value);
 }
 
-async function waitForServer(page: Page, project: number, cabinet: number, ok: (ts: ApiTerminal[]) => boolean) {
-  await expect.poll(async () => ok(await serverTerminals(page, project, cabinet)), { timeout: 20_000, interval: 300 }).toBe(true);
+async function waitForServer(
+  page: Page,
+  project: number,
+  cabinet: number,
+  ok: (ts: ApiTerminal[]) => boolean,
+) {
+  await expect
+    .poll(async () => ok(await serverTerminals(page, project, cabinet)), {
+      timeout: 20_000,
+      interval: 300,
+    })
+    .toBe(true);
 }

@@ -34,7 +34,11 @@ export function CabinetForm({
     formState: { errors, isSubmitting },
   } = useForm<CabinetCreateInput>({
     resolver: zodResolver(cabinetCreateSchema),
-    defaultValues: { tag: cabinet?.tag ?? '', name: cabinet?.name ?? '', location: cabinet?.location ?? '' },
+    defaultValues: {
+      tag: cabinet?.tag ?? '',
+      name: cabinet?.name ?? '',
+      location: cabinet?.location ?? '',
+    },
   });
   const mutation = useMutation({
     mutationFn: (values: CabinetCreateInput) =>
@@ -53,14 +57,31 @@ export function CabinetForm({
 
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-3">
-      <Field id="cabinet-tag" label="Tag" hint="Unique in the project, e.g. +CP2" error={errors.tag?.message}>
-        <Input {...ariaFor('cabinet-tag', errors.tag?.message)} className="font-mono" {...register('tag')} />
+      <Field
+        id="cabinet-tag"
+        label="Tag"
+        hint="Unique in the project, e.g. +CP2"
+        error={errors.tag?.message}
+      >
+        <Input
+          {...ariaFor('cabinet-tag', errors.tag?.message)}
+          className="font-mono"
+          {...register('tag')}
+        />
       </Field>
       <Field id="cabinet-name" label="Name" error={errors.name?.message}>
         <Input {...ariaFor('cabinet-name', errors.name?.message)} {...register('name')} />
       </Field>
-      <Field id="cabinet-location" label="Location" hint="Room, area or grid reference" error={errors.location?.message}>
-        <Input {...ariaFor('cabinet-location', errors.location?.message)} {...register('location')} />
+      <Field
+        id="cabinet-location"
+        label="Location"
+        hint="Room, area or grid reference"
+        error={errors.location?.message}
+      >
+        <Input
+          {...ariaFor('cabinet-location', errors.location?.message)}
+          {...register('location')}
+        />
       </Field>
       <FormFooter
         failure={failure}

@@ -19,15 +19,28 @@ import type { ChannelRow, GuardRecipe, TerminalRow } from '../types';
 import { FormFooter } from './form-footer';
 import { applyServerErrors, ariaFor } from './server-errors';
 
-const FIELDS = ['tag', 'name', 'signalType', 'signalTerminalId', 'returnTerminalId', 'guardRecipeId', 'guardOverrides', 'notes'] as const;
-const selectClass = 'h-10 w-full rounded-sm border border-line bg-panel px-2 text-sm text-ink aria-invalid:border-danger';
+const FIELDS = [
+  'tag',
+  'name',
+  'signalType',
+  'signalTerminalId',
+  'returnTerminalId',
+  'guardRecipeId',
+  'guardOverrides',
+  'notes',
+] as const;
+const selectClass =
+  'h-10 w-full rounded-sm border border-line bg-panel px-2 text-sm text-ink aria-invalid:border-danger';
 const idOrNull = (v: unknown) => (v === '' || v === null || v === undefined ? null : Number(v));
 const textOrNull = (v: unknown) => (typeof v === 'string' && v.trim() === '' ? null : v);
 
 /** Override texts per element id (and 'input'), as typed. */
 type OverrideDraft = Record<string, Record<string, string>>;
 
-function overridesToDraft(o: GuardOverrides | null | undefined, recipe: GuardRecipe | undefined): OverrideDraft {
+function overridesToDraft(
+  o: GuardOverrides | null | undefined,
+  recipe: GuardRecipe | undefined,
+): OverrideDraft {
   const out: OverrideDraft = {};
   if (!o || !recipe) return out;
   const elements = recipe.guard.stages.flatMap((s) => [s.series, ...s.shunts]);
@@ -58,7 +71,10 @@ function draftToOverrides(draft: OverrideDraft, recipe: GuardRecipe | undefined)
   const elements = recipe.guard.stages.flatMap((s) => [s.series, ...s.shunts]);
   const result: GuardOverrides = {};
   for (const [id, figures] of Object.entries(draft)) {
-    const specs = id === 'input' ? INPUT_FIGURES : (KIND_BY_NAME.get(elements.find((e) => e.id === id)?.kind ?? 'resistor')?.figures ?? []);
+    const specs =
+      id === 'input'
+        ? INPUT_FIGURES
+        : (KIND_BY_NAME.get(elements.find((e) => e.id === id)?.kind ?? 'resistor')?.figures ?? []);
     for (const [key, text] of Object.entries(figures)) {
       if (!text.trim()) continue;
       const spec = specs.find((s) => s.key === key);
@@ -96,7 +112,10 @@ export function ChannelForm({
 }) {
   const queryClient = useQueryClient();
   const api = projectApi(projectId);
-  const recipes = useQuery({ queryKey: keys.recipes(projectId), queryFn: () => api.listGuardRecipes() });
+  const recipes = useQuery({
+    queryKey: keys.recipes(projectId),
+    queryFn: () => api.listGuardRecipes(),
+  });
   const [failure, setFailure] = useState<string | null>(null);
   const {
     register,
@@ -127,7 +146,14 @@ export function ChannelForm({
   const recipe = recipes.data?.items.find((r) => r.id === recipeId);
   const [overrideDraft, setOverrideDraft] = useState<OverrideDraft | null>(null);
   // Until the recipes load, show the stored overrides once they can be read against their recipe.
-  const draft = overrideDraft ?? (recipe && recipe.id === channel?.guardRecipeId ? overridesToDraft(channel?.guardOverrides, recipe) : {});
+  const draft = useMemo(
+    () =>
+      overrideDraft ??
+      (recipe && recipe.id === channel?.guardRecipeId
+        ? overridesToDraft(channel?.guardOverrides, recipe)
+        : {}),
+    [overrideDraft, recipe, channel?.guardRecipeId, channel?.guardOverrides],
+  );
   const overrides = useMemo(() => draftToOverrides(draft, recipe), [draft, recipe]);
   const applied = recipe ? applyGuardOverrides(recipe.guard, overrides.value) : null;
 
@@ -149,7 +175,10 @@ export function ChannelForm({
       if (channel) {
         const { cabinetId: _omit, ...rest } = values;
         const changes = Object.fromEntries(
-          Object.entries(rest).filter(([k, v]) => JSON.stringify(channel[k as keyof ChannelRow] ?? null) !== JSON.stringify(v ?? null)),
+          Object.entries(rest).filter(
+            ([k, v]) =>
+              JSON.stringify(channel[k as keyof ChannelRow] ?? null) !== JSON.stringify(v ?? null),
+          ),
         );
         saved = await api.updateChannel(channel.id, channel.version, changes);
       } else {
@@ -177,7 +206,12 @@ export function ChannelForm({
   const e = (f: (typeof FIELDS)[number]) => errors[f]?.message;
   const terminalSelect = (f: 'signalTerminalId' | 'returnTerminalId', label: string) => (
     <Field id={`c-${f}`} label={label} error={e(f)}>
-      <select {...ariaFor(`c-${f}`, e(f))} disabled={readOnly} className={selectClass} {...register(f, { setValueAs: idOrNull })}>
+      <select
+        {...ariaFor(`c-${f}`, e(f))}
+        disabled={readOnly}
+        className={selectClass}
+        {...register(f, { setValueAs: idOrNull })}
+      >
         <option value="">none</option>
         {sortedTerminals.map((t) => (
           <option key={t.id} value={t.id}>
@@ -195,10 +229,17 @@ export function ChannelForm({
           <Input {...ariaFor('c-tag', e('tag'))} className="font-mono" {...register('tag')} />
         </Field>
         <Field id="c-name" label="Name" error={e('name')}>
-          <Input {...ariaFor('c-name', e('name'))} {...register('name', { setValueAs: textOrNull })} />
+          <Input
+            {...ariaFor('c-name', e('name'))}
+            {...register('name', { setValueAs: textOrNull })}
+          />
         </Field>
         <Field id="c-signalType" label="Signal type" error={e('signalType')}>
-          <select {...ariaFor('c-signalType', e('signalType'))} className={selectClass} {...register('signalType')}>
+          <select
+            {...ariaFor('c-signalType', e('signalType'))}
+            className={selectClass}
+            {...register('signalType')}
+          >
             {SIGNAL_TYPES.map((s) => (
               <option key={s} value={s}>
                 {s}
@@ -208,7 +249,12 @@ export function ChannelForm({
         </Field>
         {terminalSelect('signalTerminalId', 'Signal terminal')}
         {terminalSelect('returnTerminalId', 'Return terminal')}
-        <Field id="c-guardRecipeId" label="Guard recipe" hint="None = unprotected" error={e('guardRecipeId')}>
+        <Field
+          id="c-guardRecipeId"
+          label="Guard recipe"
+          hint="None = unprotected"
+          error={e('guardRecipeId')}
+        >
           <select
             {...ariaFor('c-guardRecipeId', e('guardRecipeId'))}
             className={selectClass}
@@ -228,10 +274,16 @@ export function ChannelForm({
       </fieldset>
 
       {recipe ? (
-        <fieldset disabled={readOnly} className="min-w-0 space-y-3 rounded-sm border border-line p-3">
-          <legend className="px-1 text-sm font-medium">As-built overrides of “{recipe.name}” for this channel</legend>
+        <fieldset
+          disabled={readOnly}
+          className="min-w-0 space-y-3 rounded-sm border border-line p-3"
+        >
+          <legend className="px-1 text-sm font-medium">
+            As-built overrides of “{recipe.name}” for this channel
+          </legend>
           <p className="text-xs text-muted">
-            Leave a figure blank to use the recipe&apos;s value (shown greyed). Overridden elements are drawn in the accent colour.
+            Leave a figure blank to use the recipe&apos;s value (shown greyed). Overridden elements
+            are drawn in the accent colour.
           </p>
           {applied?.guard ? (
             <GuardSchematic
@@ -244,29 +296,38 @@ export function ChannelForm({
               {applied?.problems.join(' ')}
             </p>
           )}
-          {recipe.guard.stages.flatMap((s) => [s.series, ...s.shunts]).map((element) => {
-            const spec = KIND_BY_NAME.get(element.kind)!;
-            const record = element as unknown as Record<string, unknown>;
-            return (
-              <div key={element.id} className="rounded-sm border border-line p-2">
-                <p className="mb-2 text-sm">
-                  <span className="font-mono font-semibold">{element.id}</span> · {spec.name}
-                </p>
-                <FigureGrid
-                  specs={spec.figures}
-                  values={draft[element.id] ?? {}}
-                  placeholders={Object.fromEntries(spec.figures.map((f) => [f.key, figureText(record[f.key], f) || 'not given']))}
-                  pathOf={(k) => `${element.id}.${k}`}
-                  errors={overrides.errors}
-                  readOnly={readOnly}
-                  onChange={(key, value) =>
-                    setOverrideDraft({ ...draft, [element.id]: { ...(draft[element.id] ?? {}), [key]: value } })
-                  }
-                />
-              </div>
-            );
-          })}
-          {e('guardOverrides') ? <p className="text-sm text-danger">{e('guardOverrides')}</p> : null}
+          {recipe.guard.stages
+            .flatMap((s) => [s.series, ...s.shunts])
+            .map((element) => {
+              const spec = KIND_BY_NAME.get(element.kind)!;
+              const record = element as unknown as Record<string, unknown>;
+              return (
+                <div key={element.id} className="rounded-sm border border-line p-2">
+                  <p className="mb-2 text-sm">
+                    <span className="font-mono font-semibold">{element.id}</span> · {spec.name}
+                  </p>
+                  <FigureGrid
+                    specs={spec.figures}
+                    values={draft[element.id] ?? {}}
+                    placeholders={Object.fromEntries(
+                      spec.figures.map((f) => [f.key, figureText(record[f.key], f) || 'not given']),
+                    )}
+                    pathOf={(k) => `${element.id}.${k}`}
+                    errors={overrides.errors}
+                    readOnly={readOnly}
+                    onChange={(key, value) =>
+                      setOverrideDraft({
+                        ...draft,
+                        [element.id]: { ...(draft[element.id] ?? {}), [key]: value },
+                      })
+                    }
+                  />
+                </div>
+              );
+            })}
+          {e('guardOverrides') ? (
+            <p className="text-sm text-danger">{e('guardOverrides')}</p>
+          ) : null}
         </fieldset>
       ) : null}
 
@@ -282,7 +343,12 @@ export function ChannelForm({
       {readOnly ? (
         <p className="text-sm text-muted">Your role sees channels read-only.</p>
       ) : (
-        <FormFooter failure={failure} submitting={isSubmitting} submitLabel={channel ? 'Save channel' : 'Add channel'} onCancel={() => onDone(null)} />
+        <FormFooter
+          failure={failure}
+          submitting={isSubmitting}
+          submitLabel={channel ? 'Save channel' : 'Add channel'}
+          onCancel={() => onDone(null)}
+        />
       )}
     </form>
   );

@@ -16,7 +16,10 @@ export function FormFooter({
   return (
     <div className="space-y-3 pt-2">
       {failure ? (
-        <p role="alert" className="rounded-sm border border-danger bg-danger-soft p-2 text-sm text-danger">
+        <p
+          role="alert"
+          className="rounded-sm border border-danger bg-danger-soft p-2 text-sm text-danger"
+        >
           {failure}
         </p>
       ) : null}

@@ -19,11 +19,16 @@ export function applyServerErrors<T extends FieldValues>(
       placed++;
     }
   }
-  if (error.status === 409) return `${error.message} Close this dialog to see the current values, then edit again.`;
+  if (error.status === 409)
+    return `${error.message} Close this dialog to see the current values, then edit again.`;
   return placed > 0 && error.status === 422 ? 'Some fields need attention.' : error.message;
 }
 
 /** aria wiring for a control whose error is shown by <Field id=…>. */
 export function ariaFor(id: string, message: string | undefined) {
-  return { id, 'aria-invalid': message ? true : undefined, 'aria-describedby': message ? `${id}-error` : undefined };
+  return {
+    id,
+    'aria-invalid': message ? true : undefined,
+    'aria-describedby': message ? `${id}-error` : undefined,
+  };
 }

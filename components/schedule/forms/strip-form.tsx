@@ -55,20 +55,47 @@ export function StripForm({
 
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-3">
-      <Field id="strip-tag" label="Tag" hint="Unique in the cabinet, e.g. X4" error={errors.tag?.message}>
-        <Input {...ariaFor('strip-tag', errors.tag?.message)} className="font-mono" {...register('tag')} />
+      <Field
+        id="strip-tag"
+        label="Tag"
+        hint="Unique in the cabinet, e.g. X4"
+        error={errors.tag?.message}
+      >
+        <Input
+          {...ariaFor('strip-tag', errors.tag?.message)}
+          className="font-mono"
+          {...register('tag')}
+        />
       </Field>
-      <Field id="strip-name" label="Name" hint="What the strip serves, e.g. Analog inputs" error={errors.name?.message}>
+      <Field
+        id="strip-name"
+        label="Name"
+        hint="What the strip serves, e.g. Analog inputs"
+        error={errors.name?.message}
+      >
         <Input {...ariaFor('strip-name', errors.name?.message)} {...register('name')} />
       </Field>
-      <Field id="strip-order" label="Order" hint="Drawing order in the cabinet; blank = after the last strip" error={errors.order?.message}>
+      <Field
+        id="strip-order"
+        label="Order"
+        hint="Drawing order in the cabinet; blank = after the last strip"
+        error={errors.order?.message}
+      >
         <Input
           {...ariaFor('strip-order', errors.order?.message)}
           inputMode="numeric"
-          {...register('order', { setValueAs: (v: string | number | undefined) => (v === '' || v === undefined ? undefined : Number(v)) })}
+          {...register('order', {
+            setValueAs: (v: string | number | undefined) =>
+              v === '' || v === undefined ? undefined : Number(v),
+          })}
         />
       </Field>
-      <FormFooter failure={failure} submitting={isSubmitting} submitLabel={strip ? 'Save strip' : 'Add strip'} onCancel={() => onDone(null)} />
+      <FormFooter
+        failure={failure}
+        submitting={isSubmitting}
+        submitLabel={strip ? 'Save strip' : 'Add strip'}
+        onCancel={() => onDone(null)}
+      />
     </form>
   );
 }

@@ -8,7 +8,11 @@ import { asJson, idSegment, scheduleAccess } from '../access';
 
 export const metadata: Metadata = { title: 'Cabinet schedule' };
 
-export default async function CabinetPage({ params }: { params: Promise<{ projectId: string; cabinetId: string }> }) {
+export default async function CabinetPage({
+  params,
+}: {
+  params: Promise<{ projectId: string; cabinetId: string }>;
+}) {
   const raw = await params;
   const { projectId, canWrite } = await scheduleAccess(raw.projectId);
   const cabinetId = idSegment(raw.cabinetId);

@@ -9,7 +9,11 @@ import { asJson, idSegment, scheduleAccess } from '../../cabinets/access';
 export const metadata: Metadata = { title: 'Guard recipe' };
 
 /** One recipe in the builder; the segment `new` starts an empty one (writers only). */
-export default async function GuardRecipePage({ params }: { params: Promise<{ projectId: string; recipeId: string }> }) {
+export default async function GuardRecipePage({
+  params,
+}: {
+  params: Promise<{ projectId: string; recipeId: string }>;
+}) {
   const raw = await params;
   const { projectId, canWrite } = await scheduleAccess(raw.projectId);
   let recipe: GuardRecipe | undefined;
@@ -36,7 +40,12 @@ export default async function GuardRecipePage({ params }: { params: Promise<{ pr
           </span>
         ) : null}
       </h2>
-      <GuardBuilder key={recipe ? recipe.id : 'new'} projectId={projectId} recipe={recipe} canWrite={canWrite} />
+      <GuardBuilder
+        key={recipe ? recipe.id : 'new'}
+        projectId={projectId}
+        recipe={recipe}
+        canWrite={canWrite}
+      />
     </div>
   );
 }
