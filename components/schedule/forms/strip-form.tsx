@@ -4,6 +4,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
+import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
 import { Input } from '@/components/ui/input';
 import { stripCreateSchema, type StripCreateInput } from '@/lib/validation/strip';
@@ -37,6 +38,19 @@ export function StripForm({
     resolver: zodResolver(stripCreateSchema),
     defaultValues: { tag: strip?.tag ?? '', name: strip?.name ?? '', order: strip?.order },
   });
+
+  const remove = async () => {
+    if (!strip || !window.confirm(`Delete strip ${strip.tag}?`)) return;
+    setFailure(null);
+    try {
+      await api.deleteStrip(strip.id, strip.version);
+      await queryClient.invalidateQueries({ queryKey: keys.strips(projectId, cabinetId) });
+      void queryClient.invalidateQueries({ queryKey: keys.cabinets(projectId) });
+      onDone(null);
+    } catch (error) {
+      setFailure(error instanceof Error ? error.message : String(error));
+    }
+  };
 
   const onSubmit = handleSubmit(async (values) => {
     setFailure(null);
@@ -95,6 +109,19 @@ export function StripForm({
         submitting={isSubmitting}
         submitLabel={strip ? 'Save strip' : 'Add strip'}
         onCancel={() => onDone(null)}
+        extra={
+          strip ? (
+            <Button
+              variant="danger"
+              className="mr-auto"
+              disabled={strip.terminalCount > 0}
+              title={strip.terminalCount > 0 ? 'Move or delete its terminals first' : undefined}
+              onClick={() => void remove()}
+            >
+              Delete strip
+            </Button>
+          ) : null
+        }
       />
     </form>
   );

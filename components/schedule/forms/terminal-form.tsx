@@ -4,6 +4,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
+import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
 import { Input } from '@/components/ui/input';
 import { parseEng, type UnitSymbol } from '@/lib/units';
@@ -96,6 +97,24 @@ export function TerminalForm({
   });
   const circuitClass = watch('circuitClass');
   const currentKind = watch('currentKind');
+
+  const remove = async () => {
+    if (
+      !terminal ||
+      !window.confirm(`Delete terminal ${terminal.label}? Channels that use it lose that terminal.`)
+    )
+      return;
+    setFailure(null);
+    try {
+      await api.deleteTerminal(terminal.id, terminal.version);
+      await queryClient.invalidateQueries({ queryKey: keys.terminals(projectId, cabinetId) });
+      void queryClient.invalidateQueries({ queryKey: keys.strips(projectId, cabinetId) });
+      void queryClient.invalidateQueries({ queryKey: keys.channels(projectId, cabinetId) });
+      onDone(null);
+    } catch (error) {
+      setFailure(error instanceof Error ? error.message : String(error));
+    }
+  };
 
   const onSubmit = handleSubmit(async (values) => {
     setFailure(null);
@@ -275,6 +294,13 @@ export function TerminalForm({
         submitting={isSubmitting}
         submitLabel={terminal ? 'Save terminal' : 'Add terminal'}
         onCancel={() => onDone(null)}
+        extra={
+          terminal ? (
+            <Button variant="danger" className="mr-auto" onClick={() => void remove()}>
+              Delete terminal
+            </Button>
+          ) : null
+        }
       />
     </form>
   );
