@@ -55,6 +55,13 @@ const VERDICT_FILL: Record<Verdict, string> = {
   unprotected: 'fill-verdict-unprotected',
   incomplete: 'fill-verdict-incomplete',
 };
+const VERDICT_BG: Record<Verdict, string> = {
+  holds: 'bg-verdict-holds',
+  marginal: 'bg-verdict-marginal',
+  fails: 'bg-verdict-fails',
+  unprotected: 'bg-verdict-unprotected',
+  incomplete: 'bg-verdict-incomplete',
+};
 /** A letter beside each verdict colour, so the verdict never rests on colour alone. */
 const VERDICT_MARK: Record<Verdict, string> = {
   holds: 'H',
@@ -219,7 +226,7 @@ export function StripDrawing({
             <span
               className={cn(
                 'inline-block rounded-[2px] px-1 font-mono text-[10px] text-accent-ink',
-                `bg-verdict-${v}`,
+                VERDICT_BG[v],
               )}
             >
               {VERDICT_MARK[v]}
