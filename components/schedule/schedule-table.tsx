@@ -12,7 +12,7 @@ import {
   type VisibilityState,
 } from '@tanstack/react-table';
 import { useVirtualizer } from '@tanstack/react-virtual';
-import { usePathname, useRouter, useSearchParams } from 'next/navigation';
+import { usePathname, useSearchParams } from 'next/navigation';
 import {
   memo,
   useCallback,
@@ -41,6 +41,7 @@ import type { ChannelRow, Strip, TerminalRow } from './types';
 import { useTerminalWrites, type ConflictItem } from './use-terminal-writes';
 import { validateTerminalChanges } from './validate';
 
+const NATURAL = new Intl.Collator('en', { numeric: true, sensitivity: 'base' });
 const ROW_HEIGHT = 34;
 const ERROR_LINE = 22;
 const ROW_NUMBER_WIDTH = 48;
@@ -81,36 +82,44 @@ export function ScheduleTable({
   selectedTerminalId?: number | null;
   onSelectTerminal?: (id: number) => void;
 }) {
-  const router = useRouter();
   const pathname = usePathname();
   const search = useSearchParams();
 
-  // ---- URL state: ?q=&class=&strip=&sort=&dir=&hide=
-  const q = search.get('q') ?? '';
-  const classFilter = search.get('class') ?? '';
-  const stripFilter = search.get('strip') ?? '';
-  const sortId = search.get('sort');
-  const sortDir = search.get('dir') === 'desc' ? 'desc' : 'asc';
+  // ---- view state (?q=&class=&strip=&sort=&dir=&hide=): read from the URL once, held here
+  // so controls answer at once, and written back to the URL so the view can be shared.
+  const [view, setView] = useState(
+    () => Object.fromEntries(search.entries()) as Record<string, string>,
+  );
+  const q = view.q ?? '';
+  const classFilter = view.class ?? '';
+  const stripFilter = view.strip ?? '';
+  const sortId = view.sort ?? null;
+  const sortDir = view.dir === 'desc' ? 'desc' : 'asc';
+  const hideParam = view.hide;
   const hidden = useMemo(
-    () =>
-      search.has('hide') ? (search.get('hide') ?? '').split(',').filter(Boolean) : DEFAULT_HIDDEN,
-    [search],
+    () => (hideParam !== undefined ? hideParam.split(',').filter(Boolean) : DEFAULT_HIDDEN),
+    [hideParam],
   );
-  const setParams = useCallback(
-    (patch: Record<string, string | null>) => {
-      const next = new URLSearchParams(search.toString());
+  const setParams = useCallback((patch: Record<string, string | null>) => {
+    setView((current) => {
+      const next = { ...current };
       for (const [k, v] of Object.entries(patch)) {
-        if (v === null || v === '') next.delete(k);
-        else next.set(k, v);
+        if (v === null || v === '') delete next[k];
+        else next[k] = v;
       }
-      const qs = next.toString();
-      router.replace(qs ? `${pathname}?${qs}` : pathname, { scroll: false });
-    },
-    [router, pathname, search],
-  );
-  // Typing in the search box updates the table at once and the URL a moment later.
+      return next;
+    });
+  }, []);
+  // The History API keeps the URL shareable without a server round trip: the page's data
+  // does not depend on the view.
+  useEffect(() => {
+    const qs = new URLSearchParams(view).toString();
+    if (qs !== window.location.search.replace(/^\?/, '')) {
+      window.history.replaceState(null, '', qs ? `${pathname}?${qs}` : pathname);
+    }
+  }, [view, pathname]);
+  // Typing in the search box filters at once; the URL follows a moment later.
   const [qDraft, setQDraft] = useState(q);
-  useEffect(() => setQDraft(q), [q]);
   useEffect(() => {
     if (qDraft === q) return;
     const t = setTimeout(() => setParams({ q: qDraft }), 250);
@@ -172,6 +181,14 @@ export function ScheduleTable({
         id: c.id,
         header: c.id,
         accessorFn: (row) => c.sortValue(row),
+        // Natural order, as a schedule reads: X3:2 before X3:10, blanks first.
+        sortingFn: (a, b, id) => {
+          const x = a.getValue<string | number>(id);
+          const y = b.getValue<string | number>(id);
+          return typeof x === 'number' && typeof y === 'number'
+            ? x - y
+            : NATURAL.compare(String(x), String(y));
+        },
         size: c.width,
         filterFn:
           c.id === 'circuit_class'

@@ -241,6 +241,39 @@ describe('terminal schedule', () => {
     await context.close();
   });
 
+  it('keeps sort, filters and column choice in the URL, so a view can be shared', async () => {
+    const { page, context } = await session(browser, ENGINEER);
+    project ??= await projectId(page);
+    await openCabinet(page, project, '+CP21');
+    const cabinet = cabinetIdOf(page);
+    const all = await serverTerminals(page, project, cabinet);
+    const hazards = all.filter((t) => t.circuitClass === 'hazard').length;
+
+    await page.getByRole('columnheader', { name: 'wire_no' }).getByRole('button').click();
+    await page.waitForURL(/sort=wire_no&dir=asc/);
+    await page.getByLabel('Circuit class').selectOption('hazard');
+    await page.waitForURL(/class=hazard/);
+    await page.getByText(`${hazards} of ${all.length} terminals`).waitFor();
+    await page.locator('summary', { hasText: 'Columns' }).click();
+    await page.getByRole('checkbox', { name: 'notes' }).check();
+    await page.waitForURL(/hide=/);
+
+    // The same URL in a fresh page shows the same view.
+    const shared = page.url();
+    const other = await context.newPage();
+    await other.goto(shared);
+    await other.getByText(`${hazards} of ${all.length} terminals`).waitFor();
+    expect(
+      await other.getByRole('columnheader', { name: 'wire_no' }).getAttribute('aria-sort'),
+    ).toBe('ascending');
+    expect(await other.getByRole('columnheader', { name: 'notes' }).count()).toBe(1);
+    const wires = await other.locator('td[data-column="wire_no"]').allTextContents();
+    // Natural order (numbers inside text compare as numbers), blanks first.
+    const natural = new Intl.Collator('en', { numeric: true, sensitivity: 'base' });
+    expect(wires).toEqual([...wires].sort(natural.compare));
+    await context.close();
+  });
+
   it('pastes a block from a spreadsheet down and right as one save, and refuses a block with a bad cell whole', async () => {
     const { page, context } = await session(browser, ENGINEER);
     project ??= await projectId(page);
