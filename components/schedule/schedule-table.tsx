@@ -763,9 +763,9 @@ export function ScheduleTable({
         </div>
       </div>
       <p className="text-xs text-muted">
-        Arrows move · Enter or typing edits · Tab/Enter saves and moves · Escape cancels · paste a
-        block copied from a spreadsheet into the selected cell to fill down and right (saved all
-        together, or not at all).
+        {canWrite
+          ? 'Arrows move · Enter or typing edits · Tab/Enter saves and moves · Escape cancels · paste a block copied from a spreadsheet into the selected cell to fill down and right (saved all together, or not at all).'
+          : 'Arrows move through the schedule; your role reads it without editing.'}
       </p>
 
       <ConflictDialog
