@@ -9,10 +9,22 @@ const config = [
       // TanStack Table and Virtual return non-memoisable functions by design; the React
       // Compiler already skips those components, so the warning only adds noise.
       'react-hooks/incompatible-library': 'off',
-      '@typescript-eslint/no-unused-vars': ['warn', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
+      '@typescript-eslint/no-unused-vars': [
+        'warn',
+        { argsIgnorePattern: '^_', varsIgnorePattern: '^_' },
+      ],
     },
   },
-  { ignores: ['.next/**', '.next-*/**', 'node_modules/**', 'data/**', 'next-env.d.ts', 'coverage/**'] },
+  {
+    ignores: [
+      '.next/**',
+      '.next-*/**',
+      'node_modules/**',
+      'data/**',
+      'next-env.d.ts',
+      'coverage/**',
+    ],
+  },
 ];
 
 export default config;

@@ -14,7 +14,11 @@ const config: Config = {
         paper: 'var(--cf-paper)',
         panel: 'var(--cf-panel)',
         line: 'var(--cf-line)',
-        accent: { DEFAULT: 'var(--cf-accent)', ink: 'var(--cf-accent-ink)', soft: 'var(--cf-accent-soft)' },
+        accent: {
+          DEFAULT: 'var(--cf-accent)',
+          ink: 'var(--cf-accent-ink)',
+          soft: 'var(--cf-accent-soft)',
+        },
         rail: 'var(--cf-rail)',
         danger: { DEFAULT: 'var(--cf-danger)', soft: 'var(--cf-danger-soft)' },
         caution: { DEFAULT: 'var(--cf-caution)', soft: 'var(--cf-caution-soft)' },

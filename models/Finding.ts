@@ -11,7 +11,6 @@ import type { Verdict } from '@/lib/stress/types';
 import {
   EXPOSURE_MECHANISMS,
   FINDING_KINDS,
-  STRESS_CASE_KINDS,
   VERDICTS,
   type ExposureMechanism,
   type FindingKind,

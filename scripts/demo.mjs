@@ -19,7 +19,8 @@ if (!existsSync('node_modules/.package-lock.json')) run('npm', ['ci']);
 // A local, random session secret kept under data/ (git-ignored): production mode refuses a weak one.
 mkdirSync('data', { recursive: true });
 const secretFile = 'data/.nextauth-secret';
-if (!existsSync(secretFile)) writeFileSync(secretFile, randomBytes(32).toString('base64'), { mode: 0o600 });
+if (!existsSync(secretFile))
+  writeFileSync(secretFile, randomBytes(32).toString('base64'), { mode: 0o600 });
 const port = process.env.PORT ?? '3000';
 const env = {
   ...process.env,

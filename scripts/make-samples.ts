@@ -16,7 +16,12 @@ type Row = Partial<ExportRow> & Pick<ExportRow, 'strip' | 'position' | 'label' |
 let wire = 3000;
 const nextWire = () => String(wire++);
 
-const mains = (strip: string, position: number, kind: 'mains-line' | 'mains-neutral', extra: Partial<Row> = {}): Row => ({
+const mains = (
+  strip: string,
+  position: number,
+  kind: 'mains-line' | 'mains-neutral',
+  extra: Partial<Row> = {},
+): Row => ({
   strip,
   position,
   label: `${strip}:${position}`,
@@ -43,7 +48,12 @@ const dc24 = (strip: string, position: number, extra: Partial<Row> = {}): Row =>
   ac_dc: 'dc',
   ...extra,
 });
-const input = (strip: string, position: number, channel: string, extra: Partial<Row> = {}): Row => ({
+const input = (
+  strip: string,
+  position: number,
+  channel: string,
+  extra: Partial<Row> = {},
+): Row => ({
   strip,
   position,
   label: `${strip}:${position}`,
@@ -55,7 +65,12 @@ const input = (strip: string, position: number, channel: string, extra: Partial<
   channel,
   ...extra,
 });
-const ret = (strip: string, position: number, channel: string | null, extra: Partial<Row> = {}): Row => ({
+const ret = (
+  strip: string,
+  position: number,
+  channel: string | null,
+  extra: Partial<Row> = {},
+): Row => ({
   strip,
   position,
   label: `${strip}:${position}`,
@@ -98,7 +113,12 @@ function scheduleRows(): Row[] {
   rows.push(
     mains('X31', 1, 'mains-line', { bridge: 'X31-L' }),
     mains('X31', 2, 'mains-line', { bridge: 'X31-L' }),
-    mains('X31', 3, 'mains-line', { bridge: 'X31-L', cable: 'W-2320', core: '1', notes: 'Dryer heater contactor feed' }),
+    mains('X31', 3, 'mains-line', {
+      bridge: 'X31-L',
+      cable: 'W-2320',
+      core: '1',
+      notes: 'Dryer heater contactor feed',
+    }),
     mains('X31', 4, 'mains-neutral', { bridge: 'X31-N' }),
     mains('X31', 5, 'mains-neutral', { bridge: 'X31-N' }),
     mains('X31', 6, 'mains-neutral', { bridge: 'X31-N', cable: 'W-2320', core: '2' }),
@@ -141,11 +161,29 @@ function scheduleRows(): Row[] {
     const position = i + 1;
     const block = `X33-B${position}`;
     rows.push(
-      dc24('X33', position, { level: 1, block, label: `X33:${position}.1`, bridge: 'X33-24V', cable: 'W-2311', core: String(2 * i + 1) }),
-      input('X33', position, tag, { level: 2, block, label: `X33:${position}.2`, cable: 'W-2311', core: String(2 * i + 2), notes: note }),
+      dc24('X33', position, {
+        level: 1,
+        block,
+        label: `X33:${position}.1`,
+        bridge: 'X33-24V',
+        cable: 'W-2311',
+        core: String(2 * i + 1),
+      }),
+      input('X33', position, tag, {
+        level: 2,
+        block,
+        label: `X33:${position}.2`,
+        cable: 'W-2311',
+        core: String(2 * i + 2),
+        notes: note,
+      }),
     );
   });
-  rows.push(ret('X33', 6, null, { bridge: 'X33-0V', notes: 'Common 0 V of the digital inputs' }), ret('X33', 7, null, { bridge: 'X33-0V' }), earth('X33', 8));
+  rows.push(
+    ret('X33', 6, null, { bridge: 'X33-0V', notes: 'Common 0 V of the digital inputs' }),
+    ret('X33', 7, null, { bridge: 'X33-0V' }),
+    earth('X33', 8),
+  );
   return rows;
 }
 
@@ -166,7 +204,11 @@ async function withErrors(rows: ExportRow[]): Promise<Uint8Array> {
   bad[at('X33:3.1')].voltage = null; // a hazard without its voltage
   const workbook = new ExcelJS.Workbook();
   const sheet = workbook.addWorksheet('+CP23');
-  sheet.columns = SCHEDULE_COLUMNS.map((c) => ({ header: c, key: c, width: Math.max(10, c.length + 2) }));
+  sheet.columns = SCHEDULE_COLUMNS.map((c) => ({
+    header: c,
+    key: c,
+    width: Math.max(10, c.length + 2),
+  }));
   sheet.getRow(1).font = { bold: true };
   for (const r of bad) sheet.addRow(SCHEDULE_COLUMNS.map((c) => r[c] ?? null));
   return new Uint8Array((await workbook.xlsx.writeBuffer()) as ArrayBuffer);
@@ -179,7 +221,9 @@ async function main() {
   fs.writeFileSync(path.join(dir, 'cabinet-sample.csv'), writeCsv(rows));
   fs.writeFileSync(path.join(dir, 'cabinet-sample.xlsx'), await writeXlsx(rows, '+CP23'));
   fs.writeFileSync(path.join(dir, 'cabinet-sample-with-errors.xlsx'), await withErrors(rows));
-  console.log(`Wrote ${rows.length} rows to public/samples/cabinet-sample.{csv,xlsx} and cabinet-sample-with-errors.xlsx`);
+  console.log(
+    `Wrote ${rows.length} rows to public/samples/cabinet-sample.{csv,xlsx} and cabinet-sample-with-errors.xlsx`,
+  );
 }
 
 void main();

@@ -15,7 +15,10 @@ const only = process.argv[2];
 for (const [name, cmd, args] of steps) {
   if (only && !name.toLowerCase().includes(only.toLowerCase())) continue;
   console.log(`\n━━ ${name}: ${cmd} ${args.join(' ')}`);
-  const r = spawnSync(cmd, args, { stdio: 'inherit', env: { ...process.env, FORCE_COLOR: '0', NEXT_TELEMETRY_DISABLED: '1' } });
+  const r = spawnSync(cmd, args, {
+    stdio: 'inherit',
+    env: { ...process.env, FORCE_COLOR: '0', NEXT_TELEMETRY_DISABLED: '1' },
+  });
   if (r.status !== 0) {
     console.error(`\n✖ ${name} failed (exit ${r.status}).`);
     process.exit(r.status ?? 1);

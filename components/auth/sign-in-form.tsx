@@ -55,7 +55,10 @@ export function SignInForm() {
         />
       </Field>
       {failure ? (
-        <p role="alert" className="rounded-sm border border-danger bg-danger-soft p-2 text-sm text-danger">
+        <p
+          role="alert"
+          className="rounded-sm border border-danger bg-danger-soft p-2 text-sm text-danger"
+        >
           {failure}
         </p>
       ) : null}

@@ -614,7 +614,9 @@ export function FigureGrid({
               value={values[f.key] ?? ''}
               disabled={readOnly}
               inputMode="decimal"
-              placeholder={placeholders?.[f.key] ?? (readOnly ? 'not given' : f.hint.replace(/^e\.g\. /, ''))}
+              placeholder={
+                placeholders?.[f.key] ?? (readOnly ? 'not given' : f.hint.replace(/^e\.g\. /, ''))
+              }
               onChange={(e) => onChange(f.key, e.target.value)}
               aria-invalid={error ? true : undefined}
               aria-describedby={error ? `${id}-error` : `${id}-hint`}

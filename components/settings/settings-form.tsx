@@ -9,15 +9,27 @@ import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
 import { Input } from '@/components/ui/input';
 import { projectSettingsUpdateSchema } from '@/lib/validation/project-settings';
-import { FAULT_MODES, OVERVOLTAGE_CATEGORIES, SURGE_COUPLINGS, WIRE_COLOUR_CONVENTIONS } from '@/models/enums';
+import {
+  FAULT_MODES,
+  OVERVOLTAGE_CATEGORIES,
+  SURGE_COUPLINGS,
+  WIRE_COLOUR_CONVENTIONS,
+} from '@/models/enums';
 
 type FormInput = z.input<typeof projectSettingsUpdateSchema>;
 type FormOutput = z.output<typeof projectSettingsUpdateSchema>;
 
 const LABELS = {
-  surgeCoupling: { 'line-earth': 'Line to earth (+10 Ω)', 'line-line': 'Line to line (no extra)', signal: 'Unshielded signal line (+40 Ω)' },
+  surgeCoupling: {
+    'line-earth': 'Line to earth (+10 Ω)',
+    'line-line': 'Line to line (no extra)',
+    signal: 'Unshielded signal line (+40 Ω)',
+  },
   wireColourConvention: { 'iec60204-1': 'IEC 60204-1', nfpa79: 'NFPA 79', none: 'No colour check' },
-  faultMode: { 'line-earth': 'Line to earth (one wrong landing)', 'line-line': 'Line to line (two wrong landings / ungrounded)' },
+  faultMode: {
+    'line-earth': 'Line to earth (one wrong landing)',
+    'line-line': 'Line to line (two wrong landings / ungrounded)',
+  },
 } as const;
 
 const selectClass = 'h-10 w-full rounded-sm border border-line bg-panel px-3 text-sm text-ink';
@@ -62,7 +74,9 @@ export function SettingsForm({
       reset(body.current);
       return;
     }
-    for (const [path, messages] of Object.entries((body.fieldErrors ?? {}) as Record<string, string[]>)) {
+    for (const [path, messages] of Object.entries(
+      (body.fieldErrors ?? {}) as Record<string, string[]>,
+    )) {
       setError(path as Path<FormInput>, { message: messages[0] });
     }
     setStatus({ kind: 'error', text: body.error ?? `Saving failed (${res.status}).` });
@@ -82,7 +96,12 @@ export function SettingsForm({
     </Field>
   );
 
-  const select = (name: keyof FormInput, label: string, options: readonly string[], labels?: Record<string, string>) => (
+  const select = (
+    name: keyof FormInput,
+    label: string,
+    options: readonly string[],
+    labels?: Record<string, string>,
+  ) => (
     <Field id={name} label={label} error={errors[name]?.message}>
       <select id={name} className={selectClass} disabled={!canEdit} {...register(name)}>
         {options.map((o) => (
@@ -100,32 +119,58 @@ export function SettingsForm({
       <fieldset className="grid gap-4 md:grid-cols-3">
         <legend className="mb-2 text-sm font-semibold uppercase">Supply</legend>
         <Field id="mainsSystem" label="Mains system" error={errors.mainsSystem?.message}>
-          <Input id="mainsSystem" disabled={!canEdit} aria-invalid={!!errors.mainsSystem} {...register('mainsSystem')} />
+          <Input
+            id="mainsSystem"
+            disabled={!canEdit}
+            aria-invalid={!!errors.mainsSystem}
+            {...register('mainsSystem')}
+          />
         </Field>
         {text('nominalVoltage', 'Nominal line-to-earth voltage (V rms)')}
         {text('frequency', 'Frequency (Hz)', '50 or 60')}
-        {text('supplyTolerance', 'Supply tolerance (fraction)', 'IEC 60038: 0.10 for 230/400 V systems')}
+        {text(
+          'supplyTolerance',
+          'Supply tolerance (fraction)',
+          'IEC 60038: 0.10 for 230/400 V systems',
+        )}
         {text('dcSupplyMax', 'DC supply maximum (V)', 'IEC 61131-2: 28.8 V for a 24 V supply')}
         {select('faultMode', 'Mis-wire fault', FAULT_MODES, LABELS.faultMode)}
       </fieldset>
       <fieldset className="grid gap-4 md:grid-cols-3">
         <legend className="mb-2 text-sm font-semibold uppercase">Transients</legend>
-        {select('overvoltageCategory', 'Overvoltage category (IEC 60664-1)', OVERVOLTAGE_CATEGORIES)}
+        {select(
+          'overvoltageCategory',
+          'Overvoltage category (IEC 60664-1)',
+          OVERVOLTAGE_CATEGORIES,
+        )}
         {text('surgeLevelKv', 'Surge level (kV, IEC 61000-4-5)', 'Levels 1–4: 0.5 / 1 / 2 / 4 kV')}
         {select('surgeCoupling', 'Surge coupling', SURGE_COUPLINGS, LABELS.surgeCoupling)}
-        {text('esdLevelKv', 'ESD contact level (kV, IEC 61000-4-2)', 'Levels 1–4: 2 / 4 / 6 / 8 kV')}
+        {text(
+          'esdLevelKv',
+          'ESD contact level (kV, IEC 61000-4-2)',
+          'Levels 1–4: 2 / 4 / 6 / 8 kV',
+        )}
       </fieldset>
       <fieldset className="grid gap-4 md:grid-cols-3">
         <legend className="mb-2 text-sm font-semibold uppercase">Derating and checks</legend>
         {text('ambientC', 'Cabinet ambient (°C)')}
         {text('powerDerating', 'Power derating (fraction of rating)', 'Common practice: 0.5–0.6')}
         {text('voltageDerating', 'Voltage derating (fraction of rating)', 'Common practice: 0.8')}
-        {select('wireColourConvention', 'Wire-colour convention', WIRE_COLOUR_CONVENTIONS, LABELS.wireColourConvention)}
+        {select(
+          'wireColourConvention',
+          'Wire-colour convention',
+          WIRE_COLOUR_CONVENTIONS,
+          LABELS.wireColourConvention,
+        )}
       </fieldset>
       {status ? (
         <p
           role={status.kind === 'error' ? 'alert' : 'status'}
-          className={status.kind === 'error' ? 'rounded-sm border border-danger bg-danger-soft p-2 text-sm text-danger' : 'rounded-sm border border-line bg-accent-soft p-2 text-sm'}
+          className={
+            status.kind === 'error'
+              ? 'rounded-sm border border-danger bg-danger-soft p-2 text-sm text-danger'
+              : 'rounded-sm border border-line bg-accent-soft p-2 text-sm'
+          }
         >
           {status.text}
         </p>
@@ -135,7 +180,9 @@ export function SettingsForm({
           {formState.isSubmitting ? 'Saving…' : 'Save assumptions'}
         </Button>
       ) : (
-        <p className="text-sm text-muted">Only a controls engineer or an administrator may change the assumptions.</p>
+        <p className="text-sm text-muted">
+          Only a controls engineer or an administrator may change the assumptions.
+        </p>
       )}
     </form>
   );

@@ -5,7 +5,12 @@ import { Button } from '@/components/ui/button';
 
 export function SignOutButton() {
   return (
-    <Button variant="ghost" size="sm" className="text-accent-ink hover:bg-white/10" onClick={() => signOut({ callbackUrl: '/sign-in' })}>
+    <Button
+      variant="ghost"
+      size="sm"
+      className="text-accent-ink hover:bg-white/10"
+      onClick={() => signOut({ callbackUrl: '/sign-in' })}
+    >
       Sign out
     </Button>
   );

@@ -18,7 +18,9 @@ export function TopBar({ userName, isAdmin }: { userName: string; isAdmin: boole
           </span>
           <span>
             {userName}
-            {isAdmin ? <span className="ml-2 rounded-sm bg-white/15 px-1.5 py-0.5 text-xs">admin</span> : null}
+            {isAdmin ? (
+              <span className="ml-2 rounded-sm bg-white/15 px-1.5 py-0.5 text-xs">admin</span>
+            ) : null}
           </span>
           <SignOutButton />
         </nav>

@@ -8,13 +8,36 @@ export function ClassMark({ value }: { value: string }) {
   );
 }
 
-export function ClassGlyph({ cls, x, y, size }: { cls: string; x: number; y: number; size: number }) {
+export function ClassGlyph({
+  cls,
+  x,
+  y,
+  size,
+}: {
+  cls: string;
+  x: number;
+  y: number;
+  size: number;
+}) {
   const r = size / 2;
   switch (cls) {
     case 'hazard': // a triangle pointing up: danger
-      return <path d={`M${x} ${y - r} L${x + r} ${y + r * 0.8} L${x - r} ${y + r * 0.8} Z`} className="fill-circuit-hazard" />;
+      return (
+        <path
+          d={`M${x} ${y - r} L${x + r} ${y + r * 0.8} L${x - r} ${y + r * 0.8} Z`}
+          className="fill-circuit-hazard"
+        />
+      );
     case 'sensitive': // a ring: a measuring input
-      return <circle cx={x} cy={y} r={r * 0.8} className="fill-none stroke-circuit-sensitive" strokeWidth={size / 4.5} />;
+      return (
+        <circle
+          cx={x}
+          cy={y}
+          r={r * 0.8}
+          className="fill-none stroke-circuit-sensitive"
+          strokeWidth={size / 4.5}
+        />
+      );
     case 'return': // a square outline
       return (
         <rect
@@ -35,11 +58,27 @@ export function ClassGlyph({ cls, x, y, size }: { cls: string; x: number; y: num
         </g>
       );
     case 'spare': // a dash
-      return <line x1={x - r * 0.8} x2={x + r * 0.8} y1={y} y2={y} className="stroke-circuit-spare" strokeWidth={size / 5} />;
+      return (
+        <line
+          x1={x - r * 0.8}
+          x2={x + r * 0.8}
+          y1={y}
+          y2={y}
+          className="stroke-circuit-spare"
+          strokeWidth={size / 5}
+        />
+      );
     case 'barrier': // a solid bar
-      return <rect x={x - r * 0.3} y={y - r} width={r * 0.6} height={size} className="fill-circuit-barrier" />;
+      return (
+        <rect
+          x={x - r * 0.3}
+          y={y - r}
+          width={r * 0.6}
+          height={size}
+          className="fill-circuit-barrier"
+        />
+      );
     default:
       return <circle cx={x} cy={y} r={r * 0.3} className="fill-muted" />;
   }
 }
-

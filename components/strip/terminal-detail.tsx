@@ -22,17 +22,28 @@ export function TerminalDetail({
   onClose: () => void;
 }) {
   const facts: [string, string | null][] = [
-    ['Strip / position', `${terminal.stripTag} · ${terminal.position}${terminal.level > 1 ? ` · level ${terminal.level}` : ''}`],
+    [
+      'Strip / position',
+      `${terminal.stripTag} · ${terminal.position}${terminal.level > 1 ? ` · level ${terminal.level}` : ''}`,
+    ],
     ['Block', terminal.blockId],
     ['Terminal no.', terminal.terminalNumber],
     ['Wire no.', terminal.wireNumber],
-    ['Cable / core', terminal.cableId ? `${terminal.cableId}${terminal.cableCore ? ` / ${terminal.cableCore}` : ''}` : null],
+    [
+      'Cable / core',
+      terminal.cableId
+        ? `${terminal.cableId}${terminal.cableCore ? ` / ${terminal.cableCore}` : ''}`
+        : null,
+    ],
     ['Connector', terminal.connector],
     ['Colour', terminal.wireColour],
     ['Hazard kind', terminal.hazardKind],
     ['Voltage', voltageText(terminal) || null],
     ['Frequency', terminal.frequency ? `${terminal.frequency} Hz` : null],
-    ['Source impedance', terminal.sourceImpedance !== null ? `${terminal.sourceImpedance} Ω` : null],
+    [
+      'Source impedance',
+      terminal.sourceImpedance !== null ? `${terminal.sourceImpedance} Ω` : null,
+    ],
     ['Bridge group', terminal.bridgeGroup],
     ['Notes', terminal.notes],
   ];
@@ -53,7 +64,8 @@ export function TerminalDetail({
             {channel ? (
               <>
                 {' '}
-                · channel <span className="font-mono text-ink">{channel.tag}</span> ({channel.signalType}
+                · channel <span className="font-mono text-ink">{channel.tag}</span> (
+                {channel.signalType}
                 {channel.guardRecipeName ? `, guard “${channel.guardRecipeName}”` : ', no guard'})
               </>
             ) : null}

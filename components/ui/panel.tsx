@@ -2,7 +2,9 @@ import type { HTMLAttributes, ReactNode } from 'react';
 import { cn } from '@/lib/utils';
 
 export function Panel({ className, ...props }: HTMLAttributes<HTMLElement>) {
-  return <section className={cn('rounded-sm border border-line bg-panel p-5', className)} {...props} />;
+  return (
+    <section className={cn('rounded-sm border border-line bg-panel p-5', className)} {...props} />
+  );
 }
 
 export function PanelTitle({ children, aside }: { children: ReactNode; aside?: ReactNode }) {

@@ -8,7 +8,10 @@ import { currentUserId } from './session';
 
 type RouteContext = { params: Promise<Record<string, string | string[] | undefined>> };
 
-const projectIdSchema = z.coerce.number().int().positive('Project id must be a positive whole number.');
+const projectIdSchema = z.coerce
+  .number()
+  .int()
+  .positive('Project id must be a positive whole number.');
 
 export interface ProjectActor {
   user: ActingUser;
@@ -34,7 +37,9 @@ export async function authorizeProject(
   if (!standing) throw new NotFoundError(`Project ${projectId} not found.`);
   if (!can(standing, capability)) {
     const yours = standing.isAdmin ? 'administrator' : standing.role;
-    throw new ForbiddenError(`${describeCapability(capability)} Your role on this project: ${yours}.`);
+    throw new ForbiddenError(
+      `${describeCapability(capability)} Your role on this project: ${yours}.`,
+    );
   }
   return { user, projectId, standing };
 }
@@ -102,12 +107,17 @@ export function projectRoute<
 /** Route handlers that need a signed-in user but no project (project list, own profile). */
 export function userRoute<B extends z.ZodType = z.ZodUnknown>(
   spec: { body?: B; adminOnly?: boolean },
-  handler: (input: { user: ActingUser; body: z.infer<B>; request: NextRequest }) => Promise<unknown>,
+  handler: (input: {
+    user: ActingUser;
+    body: z.infer<B>;
+    request: NextRequest;
+  }) => Promise<unknown>,
 ) {
   return async (request: NextRequest): Promise<Response> => {
     try {
       const user = await requireUser();
-      if (spec.adminOnly && !user.isAdmin) throw new ForbiddenError('Only an administrator may do this.');
+      if (spec.adminOnly && !user.isAdmin)
+        throw new ForbiddenError('Only an administrator may do this.');
       const body = spec.body ? spec.body.parse(await readJson(request)) : undefined;
       const result = await handler({ user, body: body as z.infer<B>, request });
       return result instanceof Response ? result : NextResponse.json(result ?? null);
@@ -139,11 +149,24 @@ export function projectAction<S extends z.ZodType<{ projectId: number }>, T>(
       return { ok: true, data: await fn(input, actor) };
     } catch (error) {
       if (error instanceof ZodError) {
-        return { ok: false, status: 422, error: 'Some fields need attention.', fieldErrors: fieldErrorsOf(error) };
+        return {
+          ok: false,
+          status: 422,
+          error: 'Some fields need attention.',
+          fieldErrors: fieldErrorsOf(error),
+        };
       }
       const response = errorResponse(error);
-      const body = (await response.json()) as { error: string; fieldErrors?: Record<string, string[]> };
-      return { ok: false, status: response.status, error: body.error, fieldErrors: body.fieldErrors };
+      const body = (await response.json()) as {
+        error: string;
+        fieldErrors?: Record<string, string[]>;
+      };
+      return {
+        ok: false,
+        status: response.status,
+        error: body.error,
+        fieldErrors: body.fieldErrors,
+      };
     }
   };
 }

@@ -11,7 +11,10 @@ export const authOptions: NextAuthOptions = {
   providers: [
     CredentialsProvider({
       name: 'E-mail and password',
-      credentials: { email: { label: 'E-mail', type: 'email' }, password: { label: 'Password', type: 'password' } },
+      credentials: {
+        email: { label: 'E-mail', type: 'email' },
+        password: { label: 'Password', type: 'password' },
+      },
       async authorize(raw) {
         const parsed = signInSchema.safeParse(raw);
         if (!parsed.success) return null;

@@ -43,7 +43,8 @@ export function can(standing: ProjectStanding, capability: Capability): boolean 
 export function describeCapability(capability: Capability): string {
   const roles = CAPABILITIES[capability] as readonly ProjectRole[];
   if (roles.length === 0) return 'Only an administrator may do this.';
-  const list = roles.length === 1 ? roles[0] : `${roles.slice(0, -1).join(', ')} or ${roles.at(-1)}`;
+  const list =
+    roles.length === 1 ? roles[0] : `${roles.slice(0, -1).join(', ')} or ${roles.at(-1)}`;
   return `Only a project ${list}${capability === 'review:decide' ? '' : ' or an administrator'} may do this.`;
 }
 

@@ -44,7 +44,10 @@ export function errorResponse(error: unknown): NextResponse<ErrorBody> {
     );
   }
   if (error instanceof ValidationError) {
-    return NextResponse.json({ error: error.message, fieldErrors: error.fieldErrors }, { status: 422 });
+    return NextResponse.json(
+      { error: error.message, fieldErrors: error.fieldErrors },
+      { status: 422 },
+    );
   }
   if (error instanceof UnauthorizedError) {
     return NextResponse.json({ error: error.message }, { status: 401 });
@@ -58,13 +61,23 @@ export function errorResponse(error: unknown): NextResponse<ErrorBody> {
   if (error instanceof ConflictError) {
     const changedBy = (error as { changedBy?: unknown }).changedBy;
     return NextResponse.json(
-      { error: error.message, current: error.current, ...(changedBy !== undefined ? { changedBy } : {}) },
+      {
+        error: error.message,
+        current: error.current,
+        ...(changedBy !== undefined ? { changedBy } : {}),
+      },
       { status: 409 },
     );
   }
   if (error instanceof SyntaxError) {
-    return NextResponse.json({ error: `The request body is not valid JSON: ${error.message}` }, { status: 400 });
+    return NextResponse.json(
+      { error: `The request body is not valid JSON: ${error.message}` },
+      { status: 400 },
+    );
   }
   console.error(error);
-  return NextResponse.json({ error: 'Something went wrong on the server; nothing was changed.' }, { status: 500 });
+  return NextResponse.json(
+    { error: 'Something went wrong on the server; nothing was changed.' },
+    { status: 500 },
+  );
 }

@@ -32,7 +32,12 @@ export const SCHEDULE_COLUMNS = [
 export type ScheduleColumn = (typeof SCHEDULE_COLUMNS)[number];
 
 /** Columns a file must have (mapped) to be imported at all. */
-export const REQUIRED_COLUMNS: readonly ScheduleColumn[] = ['strip', 'position', 'label', 'circuit_class'];
+export const REQUIRED_COLUMNS: readonly ScheduleColumn[] = [
+  'strip',
+  'position',
+  'label',
+  'circuit_class',
+];
 
 /** The Terminal field a column fills; strip and channel are looked up by tag. */
 export const COLUMN_FIELD = {
@@ -101,7 +106,8 @@ const bad = (message: string): Parsed => ({ ok: false, message });
 function text(max: number, required = false) {
   return (column: string, raw: string): Parsed => {
     if (raw === '') return required ? bad(`${column} is required.`) : ok(null);
-    if (raw.length > max) return bad(`${column} must be at most ${max} characters (has ${raw.length}).`);
+    if (raw.length > max)
+      return bad(`${column} must be at most ${max} characters (has ${raw.length}).`);
     return ok(raw);
   };
 }
@@ -109,10 +115,15 @@ function text(max: number, required = false) {
 function wholeNumber(min: number, max: number | null, fallback: number | null) {
   return (column: string, raw: string): Parsed => {
     const range = max === null ? `of ${min} or more` : `from ${min} to ${max}`;
-    if (raw === '') return fallback === null ? bad(`${column} is required (a whole number ${range}).`) : ok(fallback);
-    if (!/^[+]?\d+(\.0+)?$/.test(raw)) return bad(`${column} must be a whole number ${range}; "${raw}" is not.`);
+    if (raw === '')
+      return fallback === null
+        ? bad(`${column} is required (a whole number ${range}).`)
+        : ok(fallback);
+    if (!/^[+]?\d+(\.0+)?$/.test(raw))
+      return bad(`${column} must be a whole number ${range}; "${raw}" is not.`);
     const n = Number(raw);
-    if (n < min || (max !== null && n > max)) return bad(`${column} must be a whole number ${range}; got ${n}.`);
+    if (n < min || (max !== null && n > max))
+      return bad(`${column} must be a whole number ${range}; got ${n}.`);
     return ok(n);
   };
 }
@@ -121,7 +132,8 @@ function oneOf(values: readonly string[]) {
   return (column: string, raw: string): Parsed => {
     if (raw === '') return ok(null);
     const value = raw.toLowerCase();
-    if (!values.includes(value)) return bad(`${column} "${raw}" is not one of: ${values.join(', ')}.`);
+    if (!values.includes(value))
+      return bad(`${column} "${raw}" is not one of: ${values.join(', ')}.`);
     return ok(value);
   };
 }
@@ -133,7 +145,9 @@ function measure(unit: UnitSymbol, unitWords: string) {
     try {
       value = parseEng(raw, unit);
     } catch {
-      return bad(`${column} must be a number in ${unitWords} (e.g. 230, 24V, 1k); "${raw}" is not.`);
+      return bad(
+        `${column} must be a number in ${unitWords} (e.g. 230, 24V, 1k); "${raw}" is not.`,
+      );
     }
     if (value < 0) return bad(`${column} must be 0 or more; got ${raw}.`);
     return ok(value);
@@ -154,7 +168,9 @@ export const COLUMN_PARSERS: Record<ScheduleColumn, (column: string, raw: string
   connector: text(40),
   colour: text(30),
   circuit_class: (column, raw) =>
-    raw === '' ? bad(`${column} is required (${CIRCUIT_CLASSES.join(', ')}).`) : oneOf(CIRCUIT_CLASSES)(column, raw),
+    raw === ''
+      ? bad(`${column} is required (${CIRCUIT_CLASSES.join(', ')}).`)
+      : oneOf(CIRCUIT_CLASSES)(column, raw),
   hazard_kind: oneOf(HAZARD_KINDS),
   voltage: measure('V', 'volts (RMS for AC)'),
   ac_dc: oneOf(CURRENT_KINDS),

@@ -3,7 +3,13 @@
  * suggestion is made from the header names (case, spacing and punctuation ignored, plus a
  * few synonyms of our own); the user may change it before the preview.
  */
-import { COLUMN_SYNONYMS, normaliseHeader, REQUIRED_COLUMNS, SCHEDULE_COLUMNS, type ScheduleColumn } from './columns';
+import {
+  COLUMN_SYNONYMS,
+  normaliseHeader,
+  REQUIRED_COLUMNS,
+  SCHEDULE_COLUMNS,
+  type ScheduleColumn,
+} from './columns';
 
 /** { ourColumn: theirHeader } */
 export type ColumnMapping = Partial<Record<ScheduleColumn, string>>;
@@ -35,22 +41,41 @@ export function suggestMapping(headers: string[]): ColumnMapping {
 }
 
 /** Reads the `mapping` form field: JSON { ourColumn: theirHeader }; null when absent. */
-export function parseMappingField(raw: string | null): { mapping: ColumnMapping | null; problems: MappingProblem[] } {
+export function parseMappingField(raw: string | null): {
+  mapping: ColumnMapping | null;
+  problems: MappingProblem[];
+} {
   if (raw === null || raw.trim() === '') return { mapping: null, problems: [] };
   let value: unknown;
   try {
     value = JSON.parse(raw);
   } catch {
-    return { mapping: null, problems: [{ column: 'mapping', message: 'mapping must be JSON: { "ourColumn": "their header" }.' }] };
+    return {
+      mapping: null,
+      problems: [
+        { column: 'mapping', message: 'mapping must be JSON: { "ourColumn": "their header" }.' },
+      ],
+    };
   }
   if (typeof value !== 'object' || value === null || Array.isArray(value)) {
-    return { mapping: null, problems: [{ column: 'mapping', message: 'mapping must be an object: { "ourColumn": "their header" }.' }] };
+    return {
+      mapping: null,
+      problems: [
+        {
+          column: 'mapping',
+          message: 'mapping must be an object: { "ourColumn": "their header" }.',
+        },
+      ],
+    };
   }
   const mapping: ColumnMapping = {};
   const problems: MappingProblem[] = [];
   for (const [column, header] of Object.entries(value)) {
     if (!(SCHEDULE_COLUMNS as readonly string[]).includes(column)) {
-      problems.push({ column, message: `"${column}" is not one of our columns (${SCHEDULE_COLUMNS.join(', ')}).` });
+      problems.push({
+        column,
+        message: `"${column}" is not one of our columns (${SCHEDULE_COLUMNS.join(', ')}).`,
+      });
     } else if (header === null || header === '') {
       continue; // explicitly left unmapped
     } else if (typeof header !== 'string') {
@@ -70,11 +95,19 @@ export function checkMapping(mapping: ColumnMapping, headers: string[]): Mapping
       continue;
     }
     const other = seen.get(header);
-    if (other) problems.push({ column, message: `"${header}" is already mapped to ${other}; map each header once.` });
+    if (other)
+      problems.push({
+        column,
+        message: `"${header}" is already mapped to ${other}; map each header once.`,
+      });
     else seen.set(header, column);
   }
   for (const column of REQUIRED_COLUMNS) {
-    if (mapping[column] === undefined) problems.push({ column, message: `${column} is required: map one of the file's columns to it.` });
+    if (mapping[column] === undefined)
+      problems.push({
+        column,
+        message: `${column} is required: map one of the file's columns to it.`,
+      });
   }
   return problems;
 }

@@ -39,19 +39,28 @@ function startsWith(bytes: Uint8Array, magic: number[]): boolean {
 export function checkScheduleFile(name: string, bytes: Uint8Array): ScheduleFileKind {
   if (bytes.byteLength === 0) refuse(`"${name}" is empty.`);
   if (bytes.byteLength > MAX_IMPORT_BYTES) {
-    refuse(`"${name}" is ${megabytes(bytes.byteLength)}; the import limit is 5 MB. Split the schedule by cabinet or strip.`);
+    refuse(
+      `"${name}" is ${megabytes(bytes.byteLength)}; the import limit is 5 MB. Split the schedule by cabinet or strip.`,
+    );
   }
   const extension = /\.([^./\\]+)$/.exec(name)?.[1]?.toLowerCase() ?? '';
   if (extension !== 'csv' && extension !== 'xlsx') {
     const hint = extension === 'xls' ? ' Save the workbook as .xlsx first.' : '';
-    refuse(`Only .csv and .xlsx files can be imported; "${name}" is ${extension ? `.${extension}` : 'without an extension'}.${hint}`);
+    refuse(
+      `Only .csv and .xlsx files can be imported; "${name}" is ${extension ? `.${extension}` : 'without an extension'}.${hint}`,
+    );
   }
   const isZip = startsWith(bytes, ZIP_MAGIC);
   if (extension === 'xlsx' && !isZip) {
-    refuse(`"${name}" is named .xlsx but is not an Excel workbook (its content does not start like one). Save it again as .xlsx.`);
+    refuse(
+      `"${name}" is named .xlsx but is not an Excel workbook (its content does not start like one). Save it again as .xlsx.`,
+    );
   }
   if (extension === 'csv') {
-    if (isZip) refuse(`"${name}" is named .csv but holds a workbook (a zip archive). Rename it to .xlsx or export it as CSV.`);
+    if (isZip)
+      refuse(
+        `"${name}" is named .csv but holds a workbook (a zip archive). Rename it to .xlsx or export it as CSV.`,
+      );
     if (startsWith(bytes, OLE_MAGIC) || bytes.subarray(0, 8192).includes(0)) {
       refuse(`"${name}" is named .csv but is not text. Export the sheet as CSV (UTF-8).`);
     }
@@ -88,12 +97,19 @@ export function zipUnpackedSize(bytes: Uint8Array): number | null {
     const size = view.getUint32(offset + 24, true);
     if (size === 0xffffffff) return null;
     total += size;
-    offset += 46 + view.getUint16(offset + 28, true) + view.getUint16(offset + 30, true) + view.getUint16(offset + 32, true);
+    offset +=
+      46 +
+      view.getUint16(offset + 28, true) +
+      view.getUint16(offset + 30, true) +
+      view.getUint16(offset + 32, true);
   }
   return total;
 }
 
-function cellsToTable(kind: ScheduleFileKind, records: { row: number; cells: string[] }[]): ScheduleTable {
+function cellsToTable(
+  kind: ScheduleFileKind,
+  records: { row: number; cells: string[] }[],
+): ScheduleTable {
   const [head, ...body] = records;
   if (!head) refuse('The file has no header row: the first row must name the columns.');
   const headers = head.cells.map((h) => h.trim());
@@ -103,15 +119,20 @@ function cellsToTable(kind: ScheduleFileKind, records: { row: number; cells: str
     // One cell per named column, so CSV and XLSX rows read alike (XLSX omits trailing blanks).
     .map((r) => ({ row: r.row, cells: headers.map((_, i) => (r.cells[i] ?? '').trim()) }))
     .filter((r) => r.cells.some((c) => c !== ''));
-  if (rows.length > MAX_IMPORT_ROWS) refuse(`The file has ${rows.length} rows; at most ${MAX_IMPORT_ROWS} can be imported at once.`);
+  if (rows.length > MAX_IMPORT_ROWS)
+    refuse(`The file has ${rows.length} rows; at most ${MAX_IMPORT_ROWS} can be imported at once.`);
   return { kind, headers, rows };
 }
 
 export function readCsv(textIn: string): ScheduleTable {
   const text = textIn.replace(/^\uFEFF/, '');
-  const parsed = Papa.parse<string[]>(text, { skipEmptyLines: false, delimitersToGuess: [',', ';', '\t', '|'] });
+  const parsed = Papa.parse<string[]>(text, {
+    skipEmptyLines: false,
+    delimitersToGuess: [',', ';', '\t', '|'],
+  });
   const broken = parsed.errors.find((e) => e.type === 'Quotes');
-  if (broken) refuse(`The CSV has an unclosed quote near row ${(broken.row ?? 0) + 1}: ${broken.message}.`);
+  if (broken)
+    refuse(`The CSV has an unclosed quote near row ${(broken.row ?? 0) + 1}: ${broken.message}.`);
   // Each parsed record is one spreadsheet row, so its index + 1 is the row number a user sees.
   return cellsToTable(
     'csv',
@@ -127,7 +148,8 @@ function cellText(value: ExcelJS.CellValue): string {
   if (value instanceof Date) return value.toISOString().slice(0, 10);
   if (typeof value === 'object') {
     if ('richText' in value) return value.richText.map((r) => r.text).join('');
-    if ('formula' in value || 'sharedFormula' in value) return cellText((value as { result?: ExcelJS.CellValue }).result ?? null);
+    if ('formula' in value || 'sharedFormula' in value)
+      return cellText((value as { result?: ExcelJS.CellValue }).result ?? null);
     if ('text' in value) return String((value as { text: unknown }).text);
     if ('error' in value) return String((value as { error: unknown }).error);
   }
@@ -136,9 +158,14 @@ function cellText(value: ExcelJS.CellValue): string {
 
 export async function readXlsx(bytes: Uint8Array): Promise<ScheduleTable> {
   const unpacked = zipUnpackedSize(bytes);
-  if (unpacked === null) refuse('The workbook could not be read (its zip directory is missing or damaged). Save it again as .xlsx.');
+  if (unpacked === null)
+    refuse(
+      'The workbook could not be read (its zip directory is missing or damaged). Save it again as .xlsx.',
+    );
   if (unpacked > MAX_XLSX_UNPACKED_BYTES) {
-    refuse(`The workbook unpacks to ${megabytes(unpacked)}, far more than a schedule needs (limit ${megabytes(MAX_XLSX_UNPACKED_BYTES)}).`);
+    refuse(
+      `The workbook unpacks to ${megabytes(unpacked)}, far more than a schedule needs (limit ${megabytes(MAX_XLSX_UNPACKED_BYTES)}).`,
+    );
   }
   const workbook = new ExcelJS.Workbook();
   try {

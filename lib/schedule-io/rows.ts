@@ -82,7 +82,9 @@ export function readRows(table: ScheduleTable, mapping: ColumnMapping): ImportRo
         firstRowOfKey.set(key, row);
         result.parsed = {
           stripTag: String(stripTag),
-          ...(columnIndex.has('channel') ? { channelTag: (channelTag as string | null) ?? null } : {}),
+          ...(columnIndex.has('channel')
+            ? { channelTag: (channelTag as string | null) ?? null }
+            : {}),
           fields: fields as unknown as ImportedFields,
         };
       }

@@ -6,15 +6,27 @@ function commaList<T extends string>(allowed: readonly T[], what: string) {
   return z
     .string()
     .optional()
-    .transform((s) => (s ? s.split(',').map((p) => p.trim()).filter(Boolean) : undefined))
+    .transform((s) =>
+      s
+        ? s
+            .split(',')
+            .map((p) => p.trim())
+            .filter(Boolean)
+        : undefined,
+    )
     .pipe(
       z
-        .array(z.enum(allowed as unknown as [T, ...T[]], { message: `${what} must be one of: ${allowed.join(', ')}.` }))
+        .array(
+          z.enum(allowed as unknown as [T, ...T[]], {
+            message: `${what} must be one of: ${allowed.join(', ')}.`,
+          }),
+        )
         .optional(),
     );
 }
 
-const id = (what: string) => z.coerce.number().int().positive(`${what} must be a positive whole number.`);
+const id = (what: string) =>
+  z.coerce.number().int().positive(`${what} must be a positive whole number.`);
 
 export const runIdParams = z.object({ runId: id('Audit run id') });
 
@@ -25,12 +37,23 @@ export const findingsQuerySchema = z.object({
   caseId: z
     .string()
     .optional()
-    .transform((s) => (s ? s.split(',').map((p) => p.trim()).filter(Boolean) : undefined)),
+    .transform((s) =>
+      s
+        ? s
+            .split(',')
+            .map((p) => p.trim())
+            .filter(Boolean)
+        : undefined,
+    ),
   kind: commaList(FINDING_KINDS, 'kind'),
   cabinetId: id('cabinetId').optional(),
   stripId: id('stripId').optional(),
   channelId: id('channelId').optional(),
-  sort: z.enum(['margin', 'utilisation', 'channel', 'verdict'], { message: 'sort must be margin, utilisation, channel or verdict.' }).optional(),
+  sort: z
+    .enum(['margin', 'utilisation', 'channel', 'verdict'], {
+      message: 'sort must be margin, utilisation, channel or verdict.',
+    })
+    .optional(),
   dir: z.enum(['asc', 'desc'], { message: 'dir must be asc or desc.' }).optional(),
   page: z.coerce.number().int().min(1, 'page must be 1 or more.').optional(),
   pageSize: z.coerce.number().int().min(1).max(2000, 'pageSize must be at most 2000.').optional(),

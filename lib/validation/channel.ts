@@ -20,7 +20,9 @@ export const guardOverridesField = z
 const channelFields = {
   tag: requiredText('tag', 40),
   name: optionalText('name', 200),
-  signalType: z.enum(SIGNAL_TYPES, { error: `signalType must be one of: ${SIGNAL_TYPES.join(', ')}.` }),
+  signalType: z.enum(SIGNAL_TYPES, {
+    error: `signalType must be one of: ${SIGNAL_TYPES.join(', ')}.`,
+  }),
   signalTerminalId: optionalId('signalTerminalId'),
   returnTerminalId: optionalId('returnTerminalId'),
   guardRecipeId: optionalId('guardRecipeId'),

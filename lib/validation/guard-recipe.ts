@@ -10,12 +10,16 @@ import { optionalText, requiredText, versionField } from './cabinet';
 
 export const guardField = z.optional(z.unknown()).transform((value, ctx): Guard => {
   if (value === undefined || value === null) {
-    ctx.addIssue({ code: 'custom', message: 'guard is required: an object with stages and input.' });
+    ctx.addIssue({
+      code: 'custom',
+      message: 'guard is required: an object with stages and input.',
+    });
     return z.NEVER;
   }
   const parsed = guardSchema.safeParse(value);
   if (!parsed.success) {
-    for (const issue of parsed.error.issues) ctx.addIssue({ code: 'custom', message: issue.message, path: issue.path });
+    for (const issue of parsed.error.issues)
+      ctx.addIssue({ code: 'custom', message: issue.message, path: issue.path });
     return z.NEVER;
   }
   return parsed.data as Guard;
@@ -32,7 +36,11 @@ export type GuardRecipeCreateInput = z.input<typeof guardRecipeCreateSchema>;
 export type GuardRecipeCreate = z.output<typeof guardRecipeCreateSchema>;
 
 export const guardRecipeUpdateSchema = z
-  .object({ name: requiredText('name', 120), description: optionalText('description', 2000), guard: guardField })
+  .object({
+    name: requiredText('name', 120),
+    description: optionalText('description', 2000),
+    guard: guardField,
+  })
   .partial()
   .extend({ version: versionField })
   .strict();

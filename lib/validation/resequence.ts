@@ -6,7 +6,9 @@ export const stripIdParams = z.object({
 
 export const resequenceOptionsSchema = z
   .object({
-    separator: z.enum(['barrier', 'spare'], { message: 'separator must be barrier or spare.' }).optional(),
+    separator: z
+      .enum(['barrier', 'spare'], { message: 'separator must be barrier or spare.' })
+      .optional(),
   })
   .optional()
   .default({});

@@ -46,7 +46,9 @@ export const terminalFields = {
   cableCore: optionalText('cableCore', 20),
   connector: optionalText('connector', 40),
   wireColour: optionalText('wireColour', 30),
-  circuitClass: z.enum(CIRCUIT_CLASSES, { error: `circuitClass must be one of: ${CIRCUIT_CLASSES.join(', ')}.` }),
+  circuitClass: z.enum(CIRCUIT_CLASSES, {
+    error: `circuitClass must be one of: ${CIRCUIT_CLASSES.join(', ')}.`,
+  }),
   hazardKind: oneOfOrNull('hazardKind', HAZARD_KINDS),
   nominalVoltage: nonNegativeNumber('nominalVoltage', 'V, RMS for AC'),
   currentKind: oneOfOrNull('currentKind', CURRENT_KINDS),
@@ -77,11 +79,16 @@ export function terminalFactsProblems(t: TerminalFacts): Record<string, string[]
   const problems: Record<string, string[]> = {};
   const add = (field: string, message: string) => (problems[field] ??= []).push(message);
   if (t.circuitClass === 'hazard') {
-    if (!t.hazardKind) add('hazardKind', `hazardKind is required on a hazard terminal (${HAZARD_KINDS.join(', ')}).`);
+    if (!t.hazardKind)
+      add(
+        'hazardKind',
+        `hazardKind is required on a hazard terminal (${HAZARD_KINDS.join(', ')}).`,
+      );
     if (t.nominalVoltage === null || t.nominalVoltage === undefined) {
       add('nominalVoltage', 'nominalVoltage is required on a hazard terminal (V, RMS for AC).');
     }
-    if (!t.currentKind) add('currentKind', 'currentKind is required on a hazard terminal (ac or dc).');
+    if (!t.currentKind)
+      add('currentKind', 'currentKind is required on a hazard terminal (ac or dc).');
     if (t.currentKind === 'ac' && !t.frequency) {
       add('frequency', 'frequency is required on an AC hazard terminal (Hz, e.g. 50 or 60).');
     }
@@ -130,7 +137,11 @@ export const terminalBulkUpdateSchema = z
     body.updates.forEach((u, i) => {
       const first = seen.get(u.id);
       if (first !== undefined) {
-        ctx.addIssue({ code: 'custom', message: `terminal ${u.id} is already changed by updates.${first}; send one change per terminal.`, path: ['updates', i, 'id'] });
+        ctx.addIssue({
+          code: 'custom',
+          message: `terminal ${u.id} is already changed by updates.${first}; send one change per terminal.`,
+          path: ['updates', i, 'id'],
+        });
       } else seen.set(u.id, i);
     });
   });
@@ -171,11 +182,17 @@ const pageNumber = (field: string, max?: number) =>
 
 /** The schedule list's query string: sorting, filtering and paging. */
 export const terminalListQuerySchema = z.object({
-  sort: z.enum(TERMINAL_SORT_FIELDS, { error: `sort must be one of: ${TERMINAL_SORT_FIELDS.join(', ')}.` }).optional(),
+  sort: z
+    .enum(TERMINAL_SORT_FIELDS, {
+      error: `sort must be one of: ${TERMINAL_SORT_FIELDS.join(', ')}.`,
+    })
+    .optional(),
   dir: z.enum(['asc', 'desc'], { error: 'dir must be asc or desc.' }).default('asc'),
   q: z.string().trim().max(100, { error: 'q must be at most 100 characters.' }).optional(),
   stripId: pageNumber('stripId').optional(),
-  circuitClass: z.enum(CIRCUIT_CLASSES, { error: `circuitClass must be one of: ${CIRCUIT_CLASSES.join(', ')}.` }).optional(),
+  circuitClass: z
+    .enum(CIRCUIT_CLASSES, { error: `circuitClass must be one of: ${CIRCUIT_CLASSES.join(', ')}.` })
+    .optional(),
   page: pageNumber('page').default(1),
   pageSize: pageNumber('pageSize', MAX_PAGE_SIZE).default(500),
 });

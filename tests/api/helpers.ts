@@ -37,14 +37,36 @@ export interface World {
   terminalIds: number[];
   channelId: number;
   recipeId: number;
-  other: { cabinetId: number; stripId: number; terminalId: number; channelId: number; recipeId: number };
+  other: {
+    cabinetId: number;
+    stripId: number;
+    terminalId: number;
+    channelId: number;
+    recipeId: number;
+  };
 }
 
 export const SIMPLE_GUARD = {
   stages: [
     {
-      series: { kind: 'resistor', id: 'R1', resistance: 4990, ratedPower: 0.25, limitingVoltage: 200 },
-      shunts: [{ kind: 'tvs', id: 'D1', bidirectional: true, standoffVoltage: 28, breakdownVoltage: 31.1, clampVoltage: 45.4, peakPulseCurrent: 13.2 }],
+      series: {
+        kind: 'resistor',
+        id: 'R1',
+        resistance: 4990,
+        ratedPower: 0.25,
+        limitingVoltage: 200,
+      },
+      shunts: [
+        {
+          kind: 'tvs',
+          id: 'D1',
+          bidirectional: true,
+          standoffVoltage: 28,
+          breakdownVoltage: 31.1,
+          clampVoltage: 45.4,
+          peakPulseCurrent: 13.2,
+        },
+      ],
     },
   ],
   input: { positiveRail: 24, negativeRail: 0, absMaxBeyondRail: 0.3 },
@@ -60,7 +82,14 @@ export async function setupWorld(): Promise<World> {
   const { models } = getDb();
 
   const mkUser = async (key: string, isAdmin = false) =>
-    (await models.User.create({ email: `${key}@kestrel-mill.test`, name: `Test ${key}`, passwordHash: HASH, isAdmin })).id;
+    (
+      await models.User.create({
+        email: `${key}@kestrel-mill.test`,
+        name: `Test ${key}`,
+        passwordHash: HASH,
+        isAdmin,
+      })
+    ).id;
   const users = {
     engineer: await mkUser('engineer'),
     technician: await mkUser('technician'),
@@ -75,30 +104,90 @@ export async function setupWorld(): Promise<World> {
     await models.ProjectMember.create({ projectId: project.id, userId: users[role], role });
   }
   // The engineer of this project has no standing on the other one.
-  await models.ProjectMember.create({ projectId: other.id, userId: users.outsider, role: 'engineer' });
-
-  const cabinet = await models.Cabinet.create({ projectId: project.id, tag: '+BH1', name: 'Boiler house I/O' });
-  const strip = await models.Strip.create({ cabinetId: cabinet.id, tag: 'X2', order: 0 });
-  const recipe = await models.GuardRecipe.create({ projectId: project.id, name: 'DI 24 V guard', guard: SIMPLE_GUARD as never });
-  const t1 = await models.Terminal.create({
-    stripId: strip.id, position: 1, label: 'X2:1', terminalNumber: '1', circuitClass: 'hazard',
-    hazardKind: 'mains-line', nominalVoltage: 230, currentKind: 'ac', frequency: 50,
+  await models.ProjectMember.create({
+    projectId: other.id,
+    userId: users.outsider,
+    role: 'engineer',
   });
-  const t2 = await models.Terminal.create({ stripId: strip.id, position: 2, label: 'X2:2', terminalNumber: '2', circuitClass: 'barrier' });
-  const t3 = await models.Terminal.create({ stripId: strip.id, position: 3, label: 'X2:3', terminalNumber: '3', circuitClass: 'sensitive' });
-  const t4 = await models.Terminal.create({ stripId: strip.id, position: 4, label: 'X2:4', terminalNumber: '4', circuitClass: 'return' });
+
+  const cabinet = await models.Cabinet.create({
+    projectId: project.id,
+    tag: '+BH1',
+    name: 'Boiler house I/O',
+  });
+  const strip = await models.Strip.create({ cabinetId: cabinet.id, tag: 'X2', order: 0 });
+  const recipe = await models.GuardRecipe.create({
+    projectId: project.id,
+    name: 'DI 24 V guard',
+    guard: SIMPLE_GUARD as never,
+  });
+  const t1 = await models.Terminal.create({
+    stripId: strip.id,
+    position: 1,
+    label: 'X2:1',
+    terminalNumber: '1',
+    circuitClass: 'hazard',
+    hazardKind: 'mains-line',
+    nominalVoltage: 230,
+    currentKind: 'ac',
+    frequency: 50,
+  });
+  const t2 = await models.Terminal.create({
+    stripId: strip.id,
+    position: 2,
+    label: 'X2:2',
+    terminalNumber: '2',
+    circuitClass: 'barrier',
+  });
+  const t3 = await models.Terminal.create({
+    stripId: strip.id,
+    position: 3,
+    label: 'X2:3',
+    terminalNumber: '3',
+    circuitClass: 'sensitive',
+  });
+  const t4 = await models.Terminal.create({
+    stripId: strip.id,
+    position: 4,
+    label: 'X2:4',
+    terminalNumber: '4',
+    circuitClass: 'return',
+  });
   const channel = await models.Channel.create({
-    projectId: project.id, cabinetId: cabinet.id, tag: 'LS-101', signalType: 'digital-24',
-    signalTerminalId: t3.id, returnTerminalId: t4.id, guardRecipeId: recipe.id,
+    projectId: project.id,
+    cabinetId: cabinet.id,
+    tag: 'LS-101',
+    signalType: 'digital-24',
+    signalTerminalId: t3.id,
+    returnTerminalId: t4.id,
+    guardRecipeId: recipe.id,
   });
   await t3.update({ channelId: channel.id });
   await t4.update({ channelId: channel.id });
 
-  const oCabinet = await models.Cabinet.create({ projectId: other.id, tag: '+PS1', name: 'Pump station' });
+  const oCabinet = await models.Cabinet.create({
+    projectId: other.id,
+    tag: '+PS1',
+    name: 'Pump station',
+  });
   const oStrip = await models.Strip.create({ cabinetId: oCabinet.id, tag: 'X1' });
-  const oTerminal = await models.Terminal.create({ stripId: oStrip.id, position: 1, label: 'X1:1', circuitClass: 'spare' });
-  const oRecipe = await models.GuardRecipe.create({ projectId: other.id, name: 'Other guard', guard: SIMPLE_GUARD as never });
-  const oChannel = await models.Channel.create({ projectId: other.id, cabinetId: oCabinet.id, tag: 'PT-9', signalType: 'current-4-20' });
+  const oTerminal = await models.Terminal.create({
+    stripId: oStrip.id,
+    position: 1,
+    label: 'X1:1',
+    circuitClass: 'spare',
+  });
+  const oRecipe = await models.GuardRecipe.create({
+    projectId: other.id,
+    name: 'Other guard',
+    guard: SIMPLE_GUARD as never,
+  });
+  const oChannel = await models.Channel.create({
+    projectId: other.id,
+    cabinetId: oCabinet.id,
+    tag: 'PT-9',
+    signalType: 'current-4-20',
+  });
 
   return {
     dir,
@@ -110,7 +199,13 @@ export async function setupWorld(): Promise<World> {
     terminalIds: [t1.id, t2.id, t3.id, t4.id],
     channelId: channel.id,
     recipeId: recipe.id,
-    other: { cabinetId: oCabinet.id, stripId: oStrip.id, terminalId: oTerminal.id, channelId: oChannel.id, recipeId: oRecipe.id },
+    other: {
+      cabinetId: oCabinet.id,
+      stripId: oStrip.id,
+      terminalId: oTerminal.id,
+      channelId: oChannel.id,
+      recipeId: oRecipe.id,
+    },
   };
 }
 
@@ -119,7 +214,10 @@ export async function teardownWorld(world: World | undefined): Promise<void> {
   if (world) fs.rmSync(world.dir, { recursive: true, force: true });
 }
 
-type Handler = (request: NextRequest, context: { params: Promise<Record<string, string>> }) => Promise<Response>;
+type Handler = (
+  request: NextRequest,
+  context: { params: Promise<Record<string, string>> },
+) => Promise<Response>;
 
 export interface CallOptions {
   params: Record<string, string | number>;
@@ -131,11 +229,16 @@ export interface CallOptions {
 
 /** Calls a route handler as Next would: a NextRequest and params as a Promise. */
 // The JSON body is checked field by field with expect(); typing every response shape here would only repeat the handlers.
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
-export async function call(handler: Handler, options: CallOptions): Promise<{ status: number; body: any; response: Response }> {
+export async function call(
+  handler: Handler,
+  options: CallOptions,
+  // eslint-disable-next-line @typescript-eslint/no-explicit-any
+): Promise<{ status: number; body: any; response: Response }> {
   const url = new URL('http://crossfault.test/api/test');
   for (const [k, v] of Object.entries(options.query ?? {})) url.searchParams.set(k, String(v));
-  const init: { method: string; body?: BodyInit; headers?: Record<string, string> } = { method: options.method ?? 'POST' };
+  const init: { method: string; body?: BodyInit; headers?: Record<string, string> } = {
+    method: options.method ?? 'POST',
+  };
   if (options.form) init.body = options.form;
   else if (options.body !== undefined) {
     init.body = JSON.stringify(options.body);
@@ -152,8 +255,12 @@ export async function call(handler: Handler, options: CallOptions): Promise<{ st
 /** Every table the schedule writes to, for "nothing changed" checks. */
 export async function snapshot() {
   const { models } = getDb();
-  const plain = async (model: { findAll: (o: object) => Promise<{ get: (o: object) => unknown }[]> }) =>
-    (await model.findAll({ order: [['id', 'ASC']] })).map((r) => JSON.stringify(r.get({ plain: true })));
+  const plain = async (model: {
+    findAll: (o: object) => Promise<{ get: (o: object) => unknown }[]>;
+  }) =>
+    (await model.findAll({ order: [['id', 'ASC']] })).map((r) =>
+      JSON.stringify(r.get({ plain: true })),
+    );
   return {
     cabinets: await plain(models.Cabinet),
     strips: await plain(models.Strip),

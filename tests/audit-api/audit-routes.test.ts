@@ -25,18 +25,27 @@ beforeAll(async () => {
   m = db.models;
   await seedDemo(db);
   projectId = (await m.Project.findOne({ where: { code: EVAPORATOR_PROJECT_CODE } }))!.id;
-  for (const u of DEMO_USERS) userId[u.demoRole] = (await m.User.findOne({ where: { email: u.email } }))!.id;
+  for (const u of DEMO_USERS)
+    userId[u.demoRole] = (await m.User.findOne({ where: { email: u.email } }))!.id;
 }, 120_000);
 afterAll(async () => db.cleanup());
 
-const ctx = (params: Record<string, string> = {}) => ({ params: Promise.resolve({ projectId: String(projectId), ...params }) });
+const ctx = (params: Record<string, string> = {}) => ({
+  params: Promise.resolve({ projectId: String(projectId), ...params }),
+});
 const url = (path: string) => new NextRequest(`http://test/api/projects/${projectId}${path}`);
 
 async function runAudit(as: string) {
   session.userId = userId[as];
-  const res = await runs.POST(new NextRequest(`http://test/api/projects/${projectId}/audits`, { method: 'POST' }), ctx());
+  const res = await runs.POST(
+    new NextRequest(`http://test/api/projects/${projectId}/audits`, { method: 'POST' }),
+    ctx(),
+  );
   const text = await res.text();
-  const lines = text.trim().split('\n').map((l) => JSON.parse(l));
+  const lines = text
+    .trim()
+    .split('\n')
+    .map((l) => JSON.parse(l));
   return { res, lines, done: lines.at(-1) };
 }
 
@@ -46,7 +55,10 @@ describe('audit runs through the API', () => {
   it('a technician, reviewer or viewer may not run an audit, and no run is stored', async () => {
     for (const role of ['technician', 'reviewer', 'viewer']) {
       session.userId = userId[role];
-      const res = await runs.POST(new NextRequest(`http://test/api/projects/${projectId}/audits`, { method: 'POST' }), ctx());
+      const res = await runs.POST(
+        new NextRequest(`http://test/api/projects/${projectId}/audits`, { method: 'POST' }),
+        ctx(),
+      );
       expect(res.status).toBe(403);
     }
     expect(await m.AuditRun.count()).toBe(0);
@@ -74,34 +86,58 @@ describe('audit runs through the API', () => {
     expect(res.status).toBe(200);
     const body = await res.json();
     const byVerdict = body.run.summary.findingsByVerdict;
-    for (const v of ['holds', 'marginal', 'fails', 'unprotected', 'incomplete']) expect(byVerdict[v], v).toBeGreaterThan(0);
+    for (const v of ['holds', 'marginal', 'fails', 'unprotected', 'incomplete'])
+      expect(byVerdict[v], v).toBeGreaterThan(0);
     const byMechanism = body.run.summary.exposuresByMechanism;
-    for (const k of ['neighbour', 'stacked', 'same-cable', 'look-alike', 'bridge']) expect(byMechanism[k], k).toBeGreaterThan(0);
+    for (const k of ['neighbour', 'stacked', 'same-cable', 'look-alike', 'bridge'])
+      expect(byMechanism[k], k).toBeGreaterThan(0);
     expect(body.channels.length).toBeGreaterThanOrEqual(40);
   });
 
   it('findings filter by verdict and sort worst margin first', async () => {
     session.userId = userId.reviewer;
-    const res = await findings.GET(url(`/audits/${firstRun}/findings?verdict=fails,marginal&kind=stress&sort=margin`), ctx({ runId: String(firstRun) }));
+    const res = await findings.GET(
+      url(`/audits/${firstRun}/findings?verdict=fails,marginal&kind=stress&sort=margin`),
+      ctx({ runId: String(firstRun) }),
+    );
     const body = await res.json();
     expect(body.total).toBeGreaterThan(0);
-    expect(body.items.every((f: { verdict: string }) => ['fails', 'marginal'].includes(f.verdict))).toBe(true);
-    const margins = body.items.map((f: { margin: number | null }) => f.margin).filter((x: number | null) => x !== null);
+    expect(
+      body.items.every((f: { verdict: string }) => ['fails', 'marginal'].includes(f.verdict)),
+    ).toBe(true);
+    const margins = body.items
+      .map((f: { margin: number | null }) => f.margin)
+      .filter((x: number | null) => x !== null);
     expect(margins).toEqual([...margins].sort((a: number, b: number) => a - b));
-    expect(body.items.every((f: { channelTag: string | null; kind: string }) => f.kind === 'stress' && f.channelTag)).toBe(true);
+    expect(
+      body.items.every(
+        (f: { channelTag: string | null; kind: string }) => f.kind === 'stress' && f.channelTag,
+      ),
+    ).toBe(true);
   });
 
   it('the transient filter selects the project-wide surge and ESD findings', async () => {
     session.userId = userId.reviewer;
-    const res = await findings.GET(url(`/audits/${firstRun}/findings?mechanism=transient&pageSize=2000`), ctx({ runId: String(firstRun) }));
+    const res = await findings.GET(
+      url(`/audits/${firstRun}/findings?mechanism=transient&pageSize=2000`),
+      ctx({ runId: String(firstRun) }),
+    );
     const body = await res.json();
     expect(body.total).toBeGreaterThan(0);
-    expect(body.items.every((f: { caseKind: string; mechanism: string }) => ['surge', 'esd'].includes(f.caseKind) && f.mechanism === 'transient')).toBe(true);
+    expect(
+      body.items.every(
+        (f: { caseKind: string; mechanism: string }) =>
+          ['surge', 'esd'].includes(f.caseKind) && f.mechanism === 'transient',
+      ),
+    ).toBe(true);
   });
 
   it('a bad filter gets 422 naming it; an unknown run 404', async () => {
     session.userId = userId.reviewer;
-    const bad = await findings.GET(url(`/audits/${firstRun}/findings?verdict=broken`), ctx({ runId: String(firstRun) }));
+    const bad = await findings.GET(
+      url(`/audits/${firstRun}/findings?verdict=broken`),
+      ctx({ runId: String(firstRun) }),
+    );
     expect(bad.status).toBe(422);
     expect((await bad.json()).error).toMatch(/verdict/);
     const missing = await one.GET(url('/audits/99999'), ctx({ runId: '99999' }));
@@ -110,7 +146,10 @@ describe('audit runs through the API', () => {
 
   it('exports the findings as CSV', async () => {
     session.userId = userId.viewer;
-    const res = await csv.GET(url(`/audits/${firstRun}/findings.csv`), ctx({ runId: String(firstRun) }));
+    const res = await csv.GET(
+      url(`/audits/${firstRun}/findings.csv`),
+      ctx({ runId: String(firstRun) }),
+    );
     expect(res.headers.get('content-type')).toContain('text/csv');
     const text = await res.text();
     expect(text.split('\n')[0]).toContain('verdict,kind,channel,cabinet,strip,case');
@@ -119,7 +158,12 @@ describe('audit runs through the API', () => {
   it('the same inputs give the same hash; the latest run is not stale', async () => {
     const again = await runAudit('engineer');
     expect(again.done.hash).toBe((await m.AuditRun.findByPk(firstRun))!.inputHash);
-    expect(again.done.delta).toMatchObject({ inputsChanged: false, newFindings: 0, resolvedFindings: 0, changedFindings: 0 });
+    expect(again.done.delta).toMatchObject({
+      inputsChanged: false,
+      newFindings: 0,
+      resolvedFindings: 0,
+      changedFindings: 0,
+    });
     session.userId = userId.viewer;
     const s = await (await status.GET(url('/audits/latest/status'), ctx())).json();
     expect(s).toMatchObject({ latestRunId: again.done.runId, stale: false });
@@ -127,7 +171,9 @@ describe('audit runs through the API', () => {
 
   it('changing one terminal makes the schedule stale, changes the hash, and the delta names the change', async () => {
     // Move a hazard's voltage: the terminal next to a sensor input that carries 230 V.
-    const hazard = await m.Terminal.findOne({ where: { circuitClass: 'hazard', hazardKind: 'mains-line' } });
+    const hazard = await m.Terminal.findOne({
+      where: { circuitClass: 'hazard', hazardKind: 'mains-line' },
+    });
     expect(hazard).not.toBeNull();
     await hazard!.update({ nominalVoltage: 400 });
     session.userId = userId.viewer;
@@ -138,10 +184,19 @@ describe('audit runs through the API', () => {
     const after = await runAudit('engineer');
     expect(after.done.hash).not.toBe((await m.AuditRun.findByPk(firstRun))!.inputHash);
     expect(after.done.delta.inputsChanged).toBe(true);
-    expect(after.done.delta.changedFindings + after.done.delta.newFindings + after.done.delta.resolvedFindings).toBeGreaterThan(0);
+    expect(
+      after.done.delta.changedFindings +
+        after.done.delta.newFindings +
+        after.done.delta.resolvedFindings,
+    ).toBeGreaterThan(0);
     session.userId = userId.viewer;
-    const detail = await (await one.GET(url(`/audits/${after.done.runId}`), ctx({ runId: String(after.done.runId) }))).json();
-    const touched = [...detail.delta.changed.map((c: { key: string }) => c.key), ...detail.delta.newKeys];
+    const detail = await (
+      await one.GET(url(`/audits/${after.done.runId}`), ctx({ runId: String(after.done.runId) }))
+    ).json();
+    const touched = [
+      ...detail.delta.changed.map((c: { key: string }) => c.key),
+      ...detail.delta.newKeys,
+    ];
     expect(touched.some((k: string) => k.includes(hazard!.label))).toBe(true);
   });
 

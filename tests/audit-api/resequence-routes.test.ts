@@ -11,7 +11,8 @@ const session = vi.hoisted(() => ({ userId: null as number | null }));
 vi.mock('@/lib/auth/session', () => ({ currentUserId: async () => session.userId }));
 
 const propose = await import('@/app/api/projects/[projectId]/strips/[stripId]/resequence/route');
-const apply = await import('@/app/api/projects/[projectId]/strips/[stripId]/resequence/apply/route');
+const apply =
+  await import('@/app/api/projects/[projectId]/strips/[stripId]/resequence/apply/route');
 
 let db: FreshDb;
 let m: Models;
@@ -23,27 +24,45 @@ beforeAll(async () => {
   m = db.models;
   await seedDemo(db);
   projectId = (await m.Project.findOne({ where: { code: EVAPORATOR_PROJECT_CODE } }))!.id;
-  for (const u of DEMO_USERS) userId[u.demoRole] = (await m.User.findOne({ where: { email: u.email } }))!.id;
+  for (const u of DEMO_USERS)
+    userId[u.demoRole] = (await m.User.findOne({ where: { email: u.email } }))!.id;
 }, 120_000);
 afterAll(async () => db.cleanup());
 
-const ctx = (stripId: number) => ({ params: Promise.resolve({ projectId: String(projectId), stripId: String(stripId) }) });
+const ctx = (stripId: number) => ({
+  params: Promise.resolve({ projectId: String(projectId), stripId: String(stripId) }),
+});
 const post = (path: string, body: unknown) =>
-  new NextRequest(`http://test/api/projects/${projectId}${path}`, { method: 'POST', body: JSON.stringify(body) });
+  new NextRequest(`http://test/api/projects/${projectId}${path}`, {
+    method: 'POST',
+    body: JSON.stringify(body),
+  });
 
 /** Neighbour and bridge exposures on one strip, counted by the mapping itself. */
 async function stripExposures(stripId: number): Promise<number> {
   const snapshot = await buildProjectSnapshot(projectId);
-  const onStrip = new Set(snapshot.terminals.filter((t) => t.stripId === String(stripId)).map((t) => t.id));
+  const onStrip = new Set(
+    snapshot.terminals.filter((t) => t.stripId === String(stripId)).map((t) => t.id),
+  );
   return mapExposures(snapshot)
     .targets.filter((t) => onStrip.has(t.terminalId))
     .flatMap((t) => t.exposures)
-    .filter((e) => onStrip.has(e.hazardTerminalId) && (e.mechanism === 'neighbour' || e.mechanism === 'bridge')).length;
+    .filter(
+      (e) =>
+        onStrip.has(e.hazardTerminalId) &&
+        (e.mechanism === 'neighbour' || e.mechanism === 'bridge'),
+    ).length;
 }
 
 describe('strip re-sequencing through the API', () => {
   let stripId = 0;
-  let proposal: { fingerprint: string; versions: Record<string, number>; changed: boolean; before: { exposures: number }; after: { exposures: number } };
+  let proposal: {
+    fingerprint: string;
+    versions: Record<string, number>;
+    changed: boolean;
+    before: { exposures: number };
+    after: { exposures: number };
+  };
 
   it('finds a demo strip where a mains terminal sits beside a sensor input, and proposes a better order without writing', async () => {
     const strips = await m.Strip.findAll({ order: [['id', 'ASC']] });
@@ -65,23 +84,43 @@ describe('strip re-sequencing through the API', () => {
   it('a technician may not apply it, and nothing moves', async () => {
     session.userId = userId.technician;
     const before = await stripExposures(stripId);
-    const res = await apply.POST(post(`/strips/${stripId}/resequence/apply`, { fingerprint: proposal.fingerprint, versions: proposal.versions }), ctx(stripId));
+    const res = await apply.POST(
+      post(`/strips/${stripId}/resequence/apply`, {
+        fingerprint: proposal.fingerprint,
+        versions: proposal.versions,
+      }),
+      ctx(stripId),
+    );
     expect(res.status).toBe(403);
     expect(await stripExposures(stripId)).toBe(before);
   });
 
   it('applying a proposal the engineer did not see is refused with 409', async () => {
     session.userId = userId.engineer;
-    const res = await apply.POST(post(`/strips/${stripId}/resequence/apply`, { fingerprint: 'not-this-one', versions: proposal.versions }), ctx(stripId));
+    const res = await apply.POST(
+      post(`/strips/${stripId}/resequence/apply`, {
+        fingerprint: 'not-this-one',
+        versions: proposal.versions,
+      }),
+      ctx(stripId),
+    );
     expect(res.status).toBe(409);
   });
 
   it('the engineer applies it: the strip then has the exposure count the proposal promised, and the change is logged', async () => {
     session.userId = userId.engineer;
-    const res = await apply.POST(post(`/strips/${stripId}/resequence/apply`, { fingerprint: proposal.fingerprint, versions: proposal.versions }), ctx(stripId));
+    const res = await apply.POST(
+      post(`/strips/${stripId}/resequence/apply`, {
+        fingerprint: proposal.fingerprint,
+        versions: proposal.versions,
+      }),
+      ctx(stripId),
+    );
     expect(res.status).toBe(200);
     expect(await stripExposures(stripId)).toBe(proposal.after.exposures);
-    expect(await m.AuditLog.count({ where: { action: 'strip.resequence', entityId: stripId } })).toBe(1);
+    expect(
+      await m.AuditLog.count({ where: { action: 'strip.resequence', entityId: stripId } }),
+    ).toBe(1);
   });
 
   it('an unknown strip is 404', async () => {

@@ -26,9 +26,15 @@ beforeAll(async () => {
     await m.ProjectMember.create({ userId: user.id, projectId, role });
     ids[role] = user.id;
   }
-  ids.admin = (await m.User.create({ email: 'admin@guard.test', name: 'admin', passwordHash, isAdmin: true })).id;
-  ids.outsider = (await m.User.create({ email: 'outsider@guard.test', name: 'outsider', passwordHash })).id;
-  ids.inactive = (await m.User.create({ email: 'gone@guard.test', name: 'gone', passwordHash, active: false })).id;
+  ids.admin = (
+    await m.User.create({ email: 'admin@guard.test', name: 'admin', passwordHash, isAdmin: true })
+  ).id;
+  ids.outsider = (
+    await m.User.create({ email: 'outsider@guard.test', name: 'outsider', passwordHash })
+  ).id;
+  ids.inactive = (
+    await m.User.create({ email: 'gone@guard.test', name: 'gone', passwordHash, active: false })
+  ).id;
   await m.ProjectMember.create({ userId: ids.inactive, projectId, role: 'engineer' });
 });
 afterAll(async () => db.cleanup());
@@ -47,7 +53,10 @@ async function current() {
 
 async function patch(body: unknown, id: number | string = projectId) {
   return PATCH(
-    new NextRequest(`http://test/api/projects/${id}/settings`, { method: 'PATCH', body: JSON.stringify(body) }),
+    new NextRequest(`http://test/api/projects/${id}/settings`, {
+      method: 'PATCH',
+      body: JSON.stringify(body),
+    }),
     ctx(id),
   );
 }
@@ -64,7 +73,9 @@ describe('project role wrapper on an engineer-only action (changing the audit as
       const { before, body } = await withRole(role);
       const res = await patch(body);
       expect(res.status).toBe(403);
-      expect((await res.json()).error).toMatch(new RegExp(`Only a project engineer.*Your role on this project: ${role}`));
+      expect((await res.json()).error).toMatch(
+        new RegExp(`Only a project engineer.*Your role on this project: ${role}`),
+      );
       expect(await current()).toEqual(before);
     });
   }
@@ -112,7 +123,9 @@ describe('project role wrapper on an engineer-only action (changing the audit as
     const res = await patch({ ...before, supplyTolerance: 2, frequency: 55 });
     expect(res.status).toBe(422);
     const body = await res.json();
-    expect(Object.keys(body.fieldErrors)).toEqual(expect.arrayContaining(['supplyTolerance', 'frequency']));
+    expect(Object.keys(body.fieldErrors)).toEqual(
+      expect.arrayContaining(['supplyTolerance', 'frequency']),
+    );
     expect(body.fieldErrors.frequency[0]).toMatch(/50 or 60/);
     expect(await current()).toEqual(before);
   });
@@ -120,7 +133,10 @@ describe('project role wrapper on an engineer-only action (changing the audit as
   it('a body that is not JSON gets 400, not a crash', async () => {
     session.userId = ids.engineer;
     const res = await PATCH(
-      new NextRequest(`http://test/api/projects/${projectId}/settings`, { method: 'PATCH', body: '{"ambientC": ' }),
+      new NextRequest(`http://test/api/projects/${projectId}/settings`, {
+        method: 'PATCH',
+        body: '{"ambientC": ',
+      }),
       ctx(),
     );
     expect(res.status).toBe(400);

@@ -1,5 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { can, CAPABILITIES, describeCapability, PROJECT_ROLES, type Capability } from '@/lib/auth/permissions';
+import {
+  can,
+  CAPABILITIES,
+  describeCapability,
+  PROJECT_ROLES,
+  type Capability,
+} from '@/lib/auth/permissions';
 import { ConfigurationError, DEV_SECRET, readEnv } from '@/lib/env';
 
 // The role matrix follows the product design (DESIGN.md §1): engineers write the schedule and
@@ -41,7 +47,9 @@ describe('capabilities per project role', () => {
   });
 
   it('refusals name the roles that may', () => {
-    expect(describeCapability('schedule:write')).toBe('Only a project engineer or an administrator may do this.');
+    expect(describeCapability('schedule:write')).toBe(
+      'Only a project engineer or an administrator may do this.',
+    );
     expect(describeCapability('markup:create')).toBe(
       'Only a project technician or engineer or an administrator may do this.',
     );
@@ -51,9 +59,15 @@ describe('capabilities per project role', () => {
 describe('environment', () => {
   it('refuses to run in production without a real session secret', () => {
     expect(() => readEnv({ NODE_ENV: 'production' })).toThrow(ConfigurationError);
-    expect(() => readEnv({ NODE_ENV: 'production', NEXTAUTH_SECRET: DEV_SECRET })).toThrow(/NEXTAUTH_SECRET/);
-    expect(() => readEnv({ NODE_ENV: 'production', NEXTAUTH_SECRET: 'short' })).toThrow(/32 characters/);
-    expect(readEnv({ NODE_ENV: 'production', NEXTAUTH_SECRET: 'x'.repeat(32) }).NEXTAUTH_SECRET).toBe('x'.repeat(32));
+    expect(() => readEnv({ NODE_ENV: 'production', NEXTAUTH_SECRET: DEV_SECRET })).toThrow(
+      /NEXTAUTH_SECRET/,
+    );
+    expect(() => readEnv({ NODE_ENV: 'production', NEXTAUTH_SECRET: 'short' })).toThrow(
+      /32 characters/,
+    );
+    expect(
+      readEnv({ NODE_ENV: 'production', NEXTAUTH_SECRET: 'x'.repeat(32) }).NEXTAUTH_SECRET,
+    ).toBe('x'.repeat(32));
   });
 
   it('falls back to the development secret outside production', () => {
@@ -67,7 +81,11 @@ describe('environment', () => {
 
 describe('environment during a production build', () => {
   it('does not demand the secret while next build collects pages, only when serving', () => {
-    expect(() => readEnv({ NODE_ENV: 'production', NEXT_PHASE: 'phase-production-build' })).not.toThrow();
-    expect(() => readEnv({ NODE_ENV: 'production', NEXT_PHASE: 'phase-production-server' })).toThrow(/NEXTAUTH_SECRET/);
+    expect(() =>
+      readEnv({ NODE_ENV: 'production', NEXT_PHASE: 'phase-production-build' }),
+    ).not.toThrow();
+    expect(() =>
+      readEnv({ NODE_ENV: 'production', NEXT_PHASE: 'phase-production-server' }),
+    ).toThrow(/NEXTAUTH_SECRET/);
   });
 });

@@ -10,7 +10,12 @@ beforeAll(async () => {
   db = await freshDb();
   const passwordHash = bcrypt.hashSync('correct horse', 4);
   await db.models.User.create({ email: 'ines@sign-in.test', name: 'Ines', passwordHash });
-  await db.models.User.create({ email: 'left@sign-in.test', name: 'Left', passwordHash, active: false });
+  await db.models.User.create({
+    email: 'left@sign-in.test',
+    name: 'Left',
+    passwordHash,
+    active: false,
+  });
 });
 afterAll(async () => db.cleanup());
 
@@ -26,7 +31,9 @@ describe('sign-in', () => {
   it('accepts the right password, whatever the e-mail case', async () => {
     const user = await verifyCredentials(' INES@sign-in.test ', 'correct horse');
     expect(user).toMatchObject({ email: 'ines@sign-in.test', name: 'Ines', isAdmin: false });
-    expect(await authorize({ email: 'ines@sign-in.test', password: 'correct horse' })).toMatchObject({
+    expect(
+      await authorize({ email: 'ines@sign-in.test', password: 'correct horse' }),
+    ).toMatchObject({
       email: 'ines@sign-in.test',
     });
   });
@@ -44,7 +51,9 @@ describe('sign-in', () => {
   });
 
   it('stores only bcrypt hashes', async () => {
-    const row = await db.models.User.scope('withPassword').findOne({ where: { email: 'ines@sign-in.test' } });
+    const row = await db.models.User.scope('withPassword').findOne({
+      where: { email: 'ines@sign-in.test' },
+    });
     expect(row?.passwordHash).toMatch(/^\$2[aby]\$\d{2}\$/);
     expect(row?.passwordHash).not.toContain('correct horse');
   });

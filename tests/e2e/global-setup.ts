@@ -33,7 +33,9 @@ async function waitFor(url: string, timeoutMs: number) {
 export async function setup() {
   if (process.env.E2E_BASE_URL) return;
   if (!existsSync('/usr/bin/chromium')) {
-    throw new Error('Browser tests need Debian Chromium: apt-get install -y chromium (.ci/run does this).');
+    throw new Error(
+      'Browser tests need Debian Chromium: apt-get install -y chromium (.ci/run does this).',
+    );
   }
   const dataDir = path.resolve('data/e2e');
   rmSync(dataDir, { recursive: true, force: true });
@@ -48,7 +50,8 @@ export async function setup() {
   };
   run('npx', ['tsx', 'scripts/migrate.ts', 'up'], env);
   run('npx', ['tsx', 'scripts/seed.ts', '--reset'], env);
-  if (process.env.E2E_SKIP_BUILD !== '1' || !existsSync('.next/BUILD_ID')) run('npx', ['next', 'build'], env);
+  if (process.env.E2E_SKIP_BUILD !== '1' || !existsSync('.next/BUILD_ID'))
+    run('npx', ['next', 'build'], env);
   server = spawn('npx', ['next', 'start', '-p', PORT], { env, stdio: 'inherit', detached: true });
   process.env.E2E_BASE_URL = `http://localhost:${PORT}`;
   await waitFor(`${process.env.E2E_BASE_URL}/sign-in`, 120_000);

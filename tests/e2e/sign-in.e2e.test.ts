@@ -16,7 +16,9 @@ describe('sign-in as each demo role', () => {
       await signIn(page, user.email, DEMO_PASSWORD);
       await page.waitForURL(/\/projects$/);
       await expect(page.getByRole('heading', { name: 'Projects' }).isVisible()).resolves.toBe(true);
-      await expect(page.getByText('Evaporator line 2 controls upgrade').isVisible()).resolves.toBe(true);
+      await expect(page.getByText('Evaporator line 2 controls upgrade').isVisible()).resolves.toBe(
+        true,
+      );
       await expect(page.getByText(user.name).isVisible()).resolves.toBe(true);
       await shot(page, `projects-${user.demoRole}`);
       await page.close();

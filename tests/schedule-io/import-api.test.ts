@@ -14,9 +14,12 @@ import { actAs, call, setupWorld, snapshot, teardownWorld, type World } from '..
 vi.mock('@/lib/auth/session', async () => (await import('../api/helpers')).sessionMock());
 
 const cabinets = await import('@/app/api/projects/[projectId]/cabinets/route');
-const importRoute = await import('@/app/api/projects/[projectId]/cabinets/[cabinetId]/import/route');
-const exportRoute = await import('@/app/api/projects/[projectId]/cabinets/[cabinetId]/export/route');
-const cabinetTerminals = await import('@/app/api/projects/[projectId]/cabinets/[cabinetId]/terminals/route');
+const importRoute =
+  await import('@/app/api/projects/[projectId]/cabinets/[cabinetId]/import/route');
+const exportRoute =
+  await import('@/app/api/projects/[projectId]/cabinets/[cabinetId]/export/route');
+const cabinetTerminals =
+  await import('@/app/api/projects/[projectId]/cabinets/[cabinetId]/terminals/route');
 const channels = await import('@/app/api/projects/[projectId]/channels/route');
 
 const SAMPLES = path.join(process.cwd(), 'public', 'samples');
@@ -50,7 +53,11 @@ beforeAll(async () => {
   actAs(w.users.engineer);
   const created = await call(cabinets.POST, {
     params: { projectId: w.projectId },
-    body: { tag: '+CP23', name: 'Crystalliser and dryer panel', location: 'Dryer floor, column D2' },
+    body: {
+      tag: '+CP23',
+      name: 'Crystalliser and dryer panel',
+      location: 'Dryer floor, column D2',
+    },
   });
   cabinetId = created.body.id;
 });
@@ -59,22 +66,43 @@ afterAll(() => teardownWorld(w));
 describe('the sample with three bad rows', () => {
   it('preview names each bad row, the column and why; nothing is written', async () => {
     const before = await snapshot();
-    const res = await upload('cabinet-sample-with-errors.xlsx', sample('cabinet-sample-with-errors.xlsx'));
+    const res = await upload(
+      'cabinet-sample-with-errors.xlsx',
+      sample('cabinet-sample-with-errors.xlsx'),
+    );
     expect(res.status).toBe(200);
     const bad = res.body.rows.filter((r: { errors: unknown[] }) => r.errors.length > 0);
     expect(bad).toHaveLength(3);
-    expect(bad.map((r: { row: number; errors: unknown[] }) => ({ row: r.row, errors: r.errors }))).toEqual([
+    expect(
+      bad.map((r: { row: number; errors: unknown[] }) => ({ row: r.row, errors: r.errors })),
+    ).toEqual([
       {
         row: await workbookRowOf('cabinet-sample-with-errors.xlsx', 'X31:10'),
-        errors: [{ column: 'position', message: 'position must be a whole number of 1 or more; "abc" is not.' }],
+        errors: [
+          {
+            column: 'position',
+            message: 'position must be a whole number of 1 or more; "abc" is not.',
+          },
+        ],
       },
       {
         row: await workbookRowOf('cabinet-sample-with-errors.xlsx', 'X32:3'),
-        errors: [{ column: 'circuit_class', message: 'circuit_class "mains" is not one of: hazard, sensitive, return, earth, spare, barrier.' }],
+        errors: [
+          {
+            column: 'circuit_class',
+            message:
+              'circuit_class "mains" is not one of: hazard, sensitive, return, earth, spare, barrier.',
+          },
+        ],
       },
       {
         row: await workbookRowOf('cabinet-sample-with-errors.xlsx', 'X33:3.1'),
-        errors: [{ column: 'voltage', message: 'voltage is required on a hazard terminal (V, RMS for AC).' }],
+        errors: [
+          {
+            column: 'voltage',
+            message: 'voltage is required on a hazard terminal (V, RMS for AC).',
+          },
+        ],
       },
     ]);
     expect(res.body.errorCount).toBe(3);
@@ -86,7 +114,11 @@ describe('the sample with three bad rows', () => {
 
   it('a commit of it answers 422 with the same rows and writes nothing', async () => {
     const before = await snapshot();
-    const res = await upload('cabinet-sample-with-errors.xlsx', sample('cabinet-sample-with-errors.xlsx'), { mode: 'commit' });
+    const res = await upload(
+      'cabinet-sample-with-errors.xlsx',
+      sample('cabinet-sample-with-errors.xlsx'),
+      { mode: 'commit' },
+    );
     expect(res.status).toBe(422);
     expect(res.body.error).toMatch(/3 row\(s\) have errors; nothing was imported/);
     expect(res.body.rows.filter((r: { errors: unknown[] }) => r.errors.length > 0)).toHaveLength(3);
@@ -103,17 +135,34 @@ describe('the fixed sample', () => {
 
     const { models } = getDb();
     const logBefore = await models.AuditLog.count();
-    const res = await upload('cabinet-sample.xlsx', sample('cabinet-sample.xlsx'), { mode: 'commit' });
+    const res = await upload('cabinet-sample.xlsx', sample('cabinet-sample.xlsx'), {
+      mode: 'commit',
+    });
     expect(res.status).toBe(200);
-    expect(res.body).toMatchObject({ created: expected.rows.length, updated: 0, unchanged: 0, stripsCreated: ['X31', 'X32', 'X33'] });
+    expect(res.body).toMatchObject({
+      created: expected.rows.length,
+      updated: 0,
+      unchanged: 0,
+      stripsCreated: ['X31', 'X32', 'X33'],
+    });
     expect(await models.AuditLog.count()).toBe(logBefore + 1);
 
-    const list = await call(cabinetTerminals.GET, { method: 'GET', params: { projectId: w.projectId, cabinetId }, query: { pageSize: 5000 } });
+    const list = await call(cabinetTerminals.GET, {
+      method: 'GET',
+      params: { projectId: w.projectId, cabinetId },
+      query: { pageSize: 5000 },
+    });
     expect(list.body.total).toBe(expected.rows.length);
-    const tt = list.body.items.filter((r: { channelTag: string | null }) => r.channelTag === 'TT-2301');
+    const tt = list.body.items.filter(
+      (r: { channelTag: string | null }) => r.channelTag === 'TT-2301',
+    );
     expect(tt.map((r: { label: string }) => r.label)).toEqual(['X32:4', 'X32:5']);
     // The channel created by the import got its signal and return terminals from the schedule.
-    const ch = await call(channels.GET, { method: 'GET', params: { projectId: w.projectId }, query: { cabinetId } });
+    const ch = await call(channels.GET, {
+      method: 'GET',
+      params: { projectId: w.projectId },
+      query: { cabinetId },
+    });
     expect(ch.body.items.find((c: { tag: string }) => c.tag === 'TT-2301')).toMatchObject({
       signalType: 'other',
       signalTerminalLabel: 'X32:4',
@@ -123,7 +172,9 @@ describe('the fixed sample', () => {
   });
 
   it('the CSV sample holds the same schedule: importing it changes nothing', async () => {
-    const res = await upload('cabinet-sample.csv', sample('cabinet-sample.csv'), { mode: 'commit' });
+    const res = await upload('cabinet-sample.csv', sample('cabinet-sample.csv'), {
+      mode: 'commit',
+    });
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ created: 0, updated: 0 });
     expect(res.body.unchanged).toBeGreaterThan(30);
@@ -134,9 +185,15 @@ describe('export', () => {
   it('CSV and XLSX both read back to the rows imported, and re-import as unchanged', async () => {
     const imported = await readScheduleFile('cabinet-sample.xlsx', sample('cabinet-sample.xlsx'));
     for (const format of ['csv', 'xlsx'] as const) {
-      const res = await call(exportRoute.GET, { method: 'GET', params: { projectId: w.projectId, cabinetId }, query: { format } });
+      const res = await call(exportRoute.GET, {
+        method: 'GET',
+        params: { projectId: w.projectId, cabinetId },
+        query: { format },
+      });
       expect(res.status).toBe(200);
-      expect(res.response.headers.get('content-disposition')).toBe(`attachment; filename="schedule-CP23.${format}"`);
+      expect(res.response.headers.get('content-disposition')).toBe(
+        `attachment; filename="schedule-CP23.${format}"`,
+      );
       const bytes = new Uint8Array(await res.response.arrayBuffer());
       const table = await readScheduleFile(`export.${format}`, bytes);
       expect(table.headers).toEqual(imported.headers);
@@ -147,7 +204,11 @@ describe('export', () => {
   });
 
   it('an unknown format is refused', async () => {
-    const res = await call(exportRoute.GET, { method: 'GET', params: { projectId: w.projectId, cabinetId }, query: { format: 'pdf' } });
+    const res = await call(exportRoute.GET, {
+      method: 'GET',
+      params: { projectId: w.projectId, cabinetId },
+      query: { format: 'pdf' },
+    });
     expect(res.status).toBe(422);
     expect(res.body.fieldErrors.format[0]).toBe('format must be csv or xlsx.');
   });
@@ -163,13 +224,21 @@ describe('bad uploads are refused with a clear message and change nothing', () =
     const pdf = await upload('schedule.pdf', new TextEncoder().encode('%PDF-1.7'));
     expect(pdf.status).toBe(422);
     expect(pdf.body.error).toMatch(/Only \.csv and \.xlsx files can be imported/);
-    const disguised = await upload('schedule.xlsx', new TextEncoder().encode('strip,position\nX1,1\n'));
+    const disguised = await upload(
+      'schedule.xlsx',
+      new TextEncoder().encode('strip,position\nX1,1\n'),
+    );
     expect(disguised.status).toBe(422);
     expect(disguised.body.error).toMatch(/not an Excel workbook/);
-    const none = await call(importRoute.POST, { params: { projectId: w.projectId, cabinetId }, form: new FormData() });
+    const none = await call(importRoute.POST, {
+      params: { projectId: w.projectId, cabinetId },
+      form: new FormData(),
+    });
     expect(none.status).toBe(422);
     expect(none.body.fieldErrors.file[0]).toMatch(/Choose a \.csv or \.xlsx file/);
-    const badMode = await upload('cabinet-sample.csv', sample('cabinet-sample.csv'), { mode: 'write' });
+    const badMode = await upload('cabinet-sample.csv', sample('cabinet-sample.csv'), {
+      mode: 'write',
+    });
     expect(badMode.status).toBe(422);
     expect(badMode.body.fieldErrors.mode[0]).toBe('mode must be preview or commit.');
     expect(await snapshot()).toEqual(before);
@@ -179,9 +248,17 @@ describe('bad uploads are refused with a clear message and change nothing', () =
     const before = await snapshot();
     const mapping = JSON.stringify({ strip: 'strip', position: 'position', label: 'label' });
     const preview = await upload('cabinet-sample.csv', sample('cabinet-sample.csv'), { mapping });
-    expect(preview.body.mappingErrors).toEqual([{ column: 'circuit_class', message: "circuit_class is required: map one of the file's columns to it." }]);
+    expect(preview.body.mappingErrors).toEqual([
+      {
+        column: 'circuit_class',
+        message: "circuit_class is required: map one of the file's columns to it.",
+      },
+    ]);
     expect(preview.body.validCount).toBe(0);
-    const commit = await upload('cabinet-sample.csv', sample('cabinet-sample.csv'), { mapping, mode: 'commit' });
+    const commit = await upload('cabinet-sample.csv', sample('cabinet-sample.csv'), {
+      mapping,
+      mode: 'commit',
+    });
     expect(commit.status).toBe(422);
     expect(commit.body.error).toMatch(/column mapping needs attention/);
     expect(await snapshot()).toEqual(before);
@@ -191,18 +268,45 @@ describe('bad uploads are refused with a clear message and change nothing', () =
     const csv = 'strip,position,label,circuit_class\nX41,1,X41:1,hazard\n';
     const res = await upload('short.csv', new TextEncoder().encode(csv));
     expect(res.body.rows[0].errors).toEqual([
-      { column: 'hazard_kind', message: expect.stringMatching(/^hazard_kind is required on a hazard terminal .*\(the file has no hazard_kind column\)\.$/) },
-      { column: 'voltage', message: 'voltage is required on a hazard terminal (V, RMS for AC) (the file has no voltage column).' },
-      { column: 'ac_dc', message: 'ac_dc is required on a hazard terminal (ac or dc) (the file has no ac_dc column).' },
+      {
+        column: 'hazard_kind',
+        message: expect.stringMatching(
+          /^hazard_kind is required on a hazard terminal .*\(the file has no hazard_kind column\)\.$/,
+        ),
+      },
+      {
+        column: 'voltage',
+        message:
+          'voltage is required on a hazard terminal (V, RMS for AC) (the file has no voltage column).',
+      },
+      {
+        column: 'ac_dc',
+        message:
+          'ac_dc is required on a hazard terminal (ac or dc) (the file has no ac_dc column).',
+      },
     ]);
   });
 
   it('a file with its own headers imports through a mapping', async () => {
     const csv = 'Rail;Pos;Marker;Kind;Remarks\nX40;1;X40:1;spare;added by mapping\n';
-    const mapping = JSON.stringify({ strip: 'Rail', position: 'Pos', label: 'Marker', circuit_class: 'Kind', notes: 'Remarks' });
+    const mapping = JSON.stringify({
+      strip: 'Rail',
+      position: 'Pos',
+      label: 'Marker',
+      circuit_class: 'Kind',
+      notes: 'Remarks',
+    });
     const preview = await upload('theirs.csv', new TextEncoder().encode(csv));
-    expect(preview.body.suggestedMapping).toMatchObject({ strip: 'Rail', position: 'Pos', label: 'Marker', notes: 'Remarks' });
-    const res = await upload('theirs.csv', new TextEncoder().encode(csv), { mapping, mode: 'commit' });
+    expect(preview.body.suggestedMapping).toMatchObject({
+      strip: 'Rail',
+      position: 'Pos',
+      label: 'Marker',
+      notes: 'Remarks',
+    });
+    const res = await upload('theirs.csv', new TextEncoder().encode(csv), {
+      mapping,
+      mode: 'commit',
+    });
     expect(res.body).toMatchObject({ created: 1, stripsCreated: ['X40'] });
   });
 });

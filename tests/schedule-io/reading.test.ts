@@ -44,17 +44,29 @@ describe('upload checks: extension and content must agree', () => {
   });
 
   it('refuses each mismatch with a message that says what to do', () => {
-    expect(messageOf(() => checkScheduleFile('s.xlsx', text('strip,position\n')))).toMatch(/named \.xlsx but is not an Excel workbook/);
-    expect(messageOf(() => checkScheduleFile('s.csv', new Uint8Array([0x50, 0x4b, 0x03, 0x04, 1, 2])))).toMatch(/named \.csv but holds a workbook/);
-    expect(messageOf(() => checkScheduleFile('s.xls', new Uint8Array([0xd0, 0xcf, 0x11, 0xe0])))).toMatch(/Only \.csv and \.xlsx.*Save the workbook as \.xlsx/);
-    expect(messageOf(() => checkScheduleFile('s.pdf', text('%PDF-1.7')))).toMatch(/Only \.csv and \.xlsx files can be imported; "s.pdf" is \.pdf/);
-    expect(messageOf(() => checkScheduleFile('s.csv', new Uint8Array([0x73, 0x00, 0x74])))).toMatch(/not text/);
+    expect(messageOf(() => checkScheduleFile('s.xlsx', text('strip,position\n')))).toMatch(
+      /named \.xlsx but is not an Excel workbook/,
+    );
+    expect(
+      messageOf(() => checkScheduleFile('s.csv', new Uint8Array([0x50, 0x4b, 0x03, 0x04, 1, 2]))),
+    ).toMatch(/named \.csv but holds a workbook/);
+    expect(
+      messageOf(() => checkScheduleFile('s.xls', new Uint8Array([0xd0, 0xcf, 0x11, 0xe0]))),
+    ).toMatch(/Only \.csv and \.xlsx.*Save the workbook as \.xlsx/);
+    expect(messageOf(() => checkScheduleFile('s.pdf', text('%PDF-1.7')))).toMatch(
+      /Only \.csv and \.xlsx files can be imported; "s.pdf" is \.pdf/,
+    );
+    expect(messageOf(() => checkScheduleFile('s.csv', new Uint8Array([0x73, 0x00, 0x74])))).toMatch(
+      /not text/,
+    );
     expect(messageOf(() => checkScheduleFile('s.csv', new Uint8Array(0)))).toMatch(/empty/);
   });
 
   it('refuses more than 5 MB, saying how big the file is', () => {
     const big = new Uint8Array(MAX_IMPORT_BYTES + 1).fill(0x61);
-    expect(messageOf(() => checkScheduleFile('big.csv', big))).toMatch(/"big.csv" is 5\.0 MB; the import limit is 5 MB/);
+    expect(messageOf(() => checkScheduleFile('big.csv', big))).toMatch(
+      /"big.csv" is 5\.0 MB; the import limit is 5 MB/,
+    );
     // Exactly at the limit passes the size check.
     expect(checkScheduleFile('edge.csv', new Uint8Array(MAX_IMPORT_BYTES).fill(0x61))).toBe('csv');
   });
@@ -79,13 +91,31 @@ describe('upload checks: extension and content must agree', () => {
   });
 
   it('refuses a CSV that is not UTF-8', async () => {
-    await expect(readScheduleFile('latin.csv', new Uint8Array([0x73, 0x74, 0x72, 0x69, 0x70, 0x0a, 0xe9, 0x0a]))).rejects.toThrow(/not UTF-8/);
+    await expect(
+      readScheduleFile(
+        'latin.csv',
+        new Uint8Array([0x73, 0x74, 0x72, 0x69, 0x70, 0x0a, 0xe9, 0x0a]),
+      ),
+    ).rejects.toThrow(/not UTF-8/);
   });
 });
 
 describe('column mapping', () => {
   it('matches our names regardless of case, spaces and punctuation, and a few synonyms', () => {
-    const headers = ['Strip', 'POS', 'Level', 'Terminal Label', 'Wire No.', 'Circuit-Class', 'Colour', 'Voltage (V)', 'AC/DC', 'Frequency', 'Remarks', 'Something else'];
+    const headers = [
+      'Strip',
+      'POS',
+      'Level',
+      'Terminal Label',
+      'Wire No.',
+      'Circuit-Class',
+      'Colour',
+      'Voltage (V)',
+      'AC/DC',
+      'Frequency',
+      'Remarks',
+      'Something else',
+    ];
     expect(suggestMapping(headers)).toEqual({
       strip: 'Strip',
       position: 'POS',
@@ -108,15 +138,27 @@ describe('column mapping', () => {
   });
 
   it('names every problem in a mapping', () => {
-    const problems = checkMapping({ strip: 'Rail', position: 'Pos', label: 'Pos' }, ['Rail', 'Pos']);
+    const problems = checkMapping({ strip: 'Rail', position: 'Pos', label: 'Pos' }, [
+      'Rail',
+      'Pos',
+    ]);
     expect(problems).toEqual([
       { column: 'label', message: '"Pos" is already mapped to position; map each header once.' },
-      { column: 'circuit_class', message: 'circuit_class is required: map one of the file\'s columns to it.' },
+      {
+        column: 'circuit_class',
+        message: "circuit_class is required: map one of the file's columns to it.",
+      },
     ]);
-    expect(checkMapping({ strip: 'Missing', position: 'a', label: 'b', circuit_class: 'c' }, ['a', 'b', 'c'])).toEqual([
-      { column: 'strip', message: 'the file has no column headed "Missing".' },
-    ]);
-    expect(parseMappingField('{"stripp": "Rail"}').problems[0].message).toMatch(/not one of our columns/);
+    expect(
+      checkMapping({ strip: 'Missing', position: 'a', label: 'b', circuit_class: 'c' }, [
+        'a',
+        'b',
+        'c',
+      ]),
+    ).toEqual([{ column: 'strip', message: 'the file has no column headed "Missing".' }]);
+    expect(parseMappingField('{"stripp": "Rail"}').problems[0].message).toMatch(
+      /not one of our columns/,
+    );
     expect(parseMappingField('not json').problems[0].message).toMatch(/must be JSON/);
   });
 });
@@ -138,23 +180,51 @@ describe('row-by-row reading', () => {
     const rows = readRows(table, suggestMapping(table.headers));
     expect(rows.map((r) => r.row)).toEqual([2, 4, 5, 6, 7, 8]);
     expect(rows[0].errors).toEqual([]);
-    expect(rows[0].parsed?.fields).toMatchObject({ position: 1, level: 1, label: 'X1:1', circuitClass: 'spare', nominalVoltage: null });
-    expect(rows[1].errors).toEqual([{ column: 'position', message: 'position must be a whole number of 1 or more; "two" is not.' }]);
+    expect(rows[0].parsed?.fields).toMatchObject({
+      position: 1,
+      level: 1,
+      label: 'X1:1',
+      circuitClass: 'spare',
+      nominalVoltage: null,
+    });
+    expect(rows[1].errors).toEqual([
+      {
+        column: 'position',
+        message: 'position must be a whole number of 1 or more; "two" is not.',
+      },
+    ]);
     expect(rows[2].errors).toEqual([
       { column: 'level', message: 'level must be a whole number from 1 to 6; got 9.' },
-      { column: 'circuit_class', message: 'circuit_class "mains" is not one of: hazard, sensitive, return, earth, spare, barrier.' },
+      {
+        column: 'circuit_class',
+        message:
+          'circuit_class "mains" is not one of: hazard, sensitive, return, earth, spare, barrier.',
+      },
     ]);
     expect(rows[3].errors).toEqual([{ column: 'label', message: 'label is required.' }]);
-    expect(rows[4].errors).toEqual([{ column: 'position', message: 'strip X1 position 1 level 1 is also on row 2; each place may appear once.' }]);
+    expect(rows[4].errors).toEqual([
+      {
+        column: 'position',
+        message: 'strip X1 position 1 level 1 is also on row 2; each place may appear once.',
+      },
+    ]);
     expect(rows[5].errors[0]).toMatchObject({ column: 'voltage' });
     expect(rows[5].errors[0].message).toMatch(/must be a number in volts.*"tall" is not/);
   });
 
   it('reads units and engineering notation in measured columns', () => {
-    const table = readCsv('strip,position,label,circuit_class,hazard_kind,voltage,ac_dc,frequency_hz,source_ohms\nX1,1,X1:1,hazard,mains-line,230 V,AC,50Hz,1k\n');
+    const table = readCsv(
+      'strip,position,label,circuit_class,hazard_kind,voltage,ac_dc,frequency_hz,source_ohms\nX1,1,X1:1,hazard,mains-line,230 V,AC,50Hz,1k\n',
+    );
     const [row] = readRows(table, suggestMapping(table.headers));
     expect(row.errors).toEqual([]);
-    expect(row.parsed?.fields).toMatchObject({ nominalVoltage: 230, currentKind: 'ac', frequency: 50, sourceImpedance: 1000, hazardKind: 'mains-line' });
+    expect(row.parsed?.fields).toMatchObject({
+      nominalVoltage: 230,
+      currentKind: 'ac',
+      frequency: 50,
+      sourceImpedance: 1000,
+      hazardKind: 'mains-line',
+    });
   });
 
   it('guesses a semicolon delimiter (spreadsheets in many locales write one)', () => {
@@ -166,8 +236,29 @@ describe('row-by-row reading', () => {
 
 describe('export writes what import reads', () => {
   const source = [
-    { stripTag: 'X1', position: 1, level: 1, label: 'X1:1', circuitClass: 'hazard', hazardKind: 'mains-line', nominalVoltage: 230, currentKind: 'ac', frequency: 50, channelTag: null, notes: 'Feed, "main" — 230 V' },
-    { stripTag: 'X1', position: 2, level: 2, label: 'X1:2.2', circuitClass: 'sensitive', channelTag: 'TT-1', wireColour: 'BU', blockId: 'X1-B2' },
+    {
+      stripTag: 'X1',
+      position: 1,
+      level: 1,
+      label: 'X1:1',
+      circuitClass: 'hazard',
+      hazardKind: 'mains-line',
+      nominalVoltage: 230,
+      currentKind: 'ac',
+      frequency: 50,
+      channelTag: null,
+      notes: 'Feed, "main" — 230 V',
+    },
+    {
+      stripTag: 'X1',
+      position: 2,
+      level: 2,
+      label: 'X1:2.2',
+      circuitClass: 'sensitive',
+      channelTag: 'TT-1',
+      wireColour: 'BU',
+      blockId: 'X1-B2',
+    },
   ];
 
   it('CSV and XLSX both read back to the same cells', async () => {
@@ -178,7 +269,15 @@ describe('export writes what import reads', () => {
     expect(csv.rows).toEqual(xlsx.rows);
     const read = readRows(csv, suggestMapping(csv.headers));
     expect(read.map((r) => r.errors)).toEqual([[], []]);
-    expect(read[0].parsed).toMatchObject({ stripTag: 'X1', channelTag: null, fields: { nominalVoltage: 230, notes: 'Feed, "main" — 230 V' } });
-    expect(read[1].parsed).toMatchObject({ stripTag: 'X1', channelTag: 'TT-1', fields: { level: 2, blockId: 'X1-B2', wireColour: 'BU' } });
+    expect(read[0].parsed).toMatchObject({
+      stripTag: 'X1',
+      channelTag: null,
+      fields: { nominalVoltage: 230, notes: 'Feed, "main" — 230 V' },
+    });
+    expect(read[1].parsed).toMatchObject({
+      stripTag: 'X1',
+      channelTag: 'TT-1',
+      fields: { level: 2, blockId: 'X1-B2', wireColour: 'BU' },
+    });
   });
 });

@@ -18,14 +18,17 @@ export default async function ProjectsPage() {
       <div className="flex items-end justify-between">
         <div>
           <h1 className="text-2xl font-semibold">Projects</h1>
-          <p className="text-sm text-muted">Plants and site jobs you are a member of, with your role on each.</p>
+          <p className="text-sm text-muted">
+            Plants and site jobs you are a member of, with your role on each.
+          </p>
         </div>
       </div>
       {projects.length === 0 ? (
         <Panel>
           <p className="font-medium">You are not a member of any project yet.</p>
           <p className="mt-1 text-sm text-muted">
-            Ask your administrator to add you to a project; the invitation e-mail tells you your role.
+            Ask your administrator to add you to a project; the invitation e-mail tells you your
+            role.
           </p>
         </Panel>
       ) : (
@@ -47,7 +50,8 @@ export default async function ProjectsPage() {
                   {[p.client, p.site].filter(Boolean).join(' · ')}
                 </p>
                 <p className="mt-3 font-mono text-xs text-muted">
-                  {p.counts.cabinets} cabinets · {p.counts.terminals} terminals · {p.counts.channels} channels
+                  {p.counts.cabinets} cabinets · {p.counts.terminals} terminals ·{' '}
+                  {p.counts.channels} channels
                 </p>
               </Link>
             </li>

@@ -23,10 +23,14 @@ export default async function SettingsPage({ params }: { params: Promise<{ proje
         <PanelTitle>Audit assumptions</PanelTitle>
         <p className="mb-4 max-w-3xl text-sm text-muted">
           Every audit of this project takes these as given: the worst supply voltage a mis-wire can
-          apply, the transient levels to withstand, and how hard parts may be worked. They are printed
-          on every report and handover pack.
+          apply, the transient levels to withstand, and how hard parts may be worked. They are
+          printed on every report and handover pack.
         </p>
-        <SettingsForm projectId={projectId} initial={settings} canEdit={can(standing, 'settings:write')} />
+        <SettingsForm
+          projectId={projectId}
+          initial={settings}
+          canEdit={can(standing, 'settings:write')}
+        />
       </Panel>
       <Caution>
         These defaults follow the cited standards and common practice. Local electrical codes, the

@@ -31,9 +31,18 @@ export const POST = projectRoute({ capability: 'audit:run' }, async ({ actor }) 
       };
       try {
         const result = await runProjectAudit(actor, onProgress);
-        send({ type: 'done', runId: result.runId, hash: result.hash, summary: result.summary, delta: deltaCounts(result.delta) });
+        send({
+          type: 'done',
+          runId: result.runId,
+          hash: result.hash,
+          summary: result.summary,
+          delta: deltaCounts(result.delta),
+        });
       } catch (error) {
-        send({ type: 'error', error: error instanceof Error ? error.message : 'The audit failed; nothing was stored.' });
+        send({
+          type: 'error',
+          error: error instanceof Error ? error.message : 'The audit failed; nothing was stored.',
+        });
       } finally {
         try {
           controller.close();

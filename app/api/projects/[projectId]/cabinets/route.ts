@@ -7,6 +7,11 @@ export const GET = projectRoute({ capability: 'schedule:read' }, async ({ actor 
   items: await listCabinets(actor.projectId),
 }));
 
-export const POST = projectRoute({ capability: 'schedule:write', body: cabinetCreateSchema }, async ({ actor, body }) =>
-  NextResponse.json(await createCabinet({ userId: actor.user.id, projectId: actor.projectId }, body), { status: 201 }),
+export const POST = projectRoute(
+  { capability: 'schedule:write', body: cabinetCreateSchema },
+  async ({ actor, body }) =>
+    NextResponse.json(
+      await createCabinet({ userId: actor.user.id, projectId: actor.projectId }, body),
+      { status: 201 },
+    ),
 );

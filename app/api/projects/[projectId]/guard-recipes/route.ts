@@ -7,6 +7,11 @@ export const GET = projectRoute({ capability: 'schedule:read' }, async ({ actor 
   items: await listGuardRecipes(actor.projectId),
 }));
 
-export const POST = projectRoute({ capability: 'schedule:write', body: guardRecipeCreateSchema }, async ({ actor, body }) =>
-  NextResponse.json(await createGuardRecipe({ userId: actor.user.id, projectId: actor.projectId }, body), { status: 201 }),
+export const POST = projectRoute(
+  { capability: 'schedule:write', body: guardRecipeCreateSchema },
+  async ({ actor, body }) =>
+    NextResponse.json(
+      await createGuardRecipe({ userId: actor.user.id, projectId: actor.projectId }, body),
+      { status: 201 },
+    ),
 );

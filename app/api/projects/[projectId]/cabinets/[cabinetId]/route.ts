@@ -5,19 +5,25 @@ import { cabinetUpdateSchema, idParam, versionQuery } from '@/lib/validation/cab
 
 const params = z.object({ cabinetId: idParam('cabinetId') });
 
-export const GET = projectRoute({ capability: 'schedule:read', params }, async ({ actor, params }) =>
-  getCabinet(actor.projectId, params.cabinetId),
+export const GET = projectRoute(
+  { capability: 'schedule:read', params },
+  async ({ actor, params }) => getCabinet(actor.projectId, params.cabinetId),
 );
 
 export const PATCH = projectRoute(
   { capability: 'schedule:write', params, body: cabinetUpdateSchema },
-  async ({ actor, params, body }) => updateCabinet({ userId: actor.user.id, projectId: actor.projectId }, params.cabinetId, body),
+  async ({ actor, params, body }) =>
+    updateCabinet({ userId: actor.user.id, projectId: actor.projectId }, params.cabinetId, body),
 );
 
 export const DELETE = projectRoute(
   { capability: 'schedule:write', params, query: versionQuery },
   async ({ actor, params, query }) => {
-    await deleteCabinet({ userId: actor.user.id, projectId: actor.projectId }, params.cabinetId, query.version);
+    await deleteCabinet(
+      { userId: actor.user.id, projectId: actor.projectId },
+      params.cabinetId,
+      query.version,
+    );
     return { deleted: true };
   },
 );

@@ -15,7 +15,11 @@ export const PATCH = projectRoute(
 export const DELETE = projectRoute(
   { capability: 'schedule:write', params, query: versionQuery },
   async ({ actor, params, query }) => {
-    await deleteGuardRecipe({ userId: actor.user.id, projectId: actor.projectId }, params.recipeId, query.version);
+    await deleteGuardRecipe(
+      { userId: actor.user.id, projectId: actor.projectId },
+      params.recipeId,
+      query.version,
+    );
     return { deleted: true };
   },
 );

@@ -8,13 +8,18 @@ const params = z.object({ stripId: idParam('stripId') });
 
 export const PATCH = projectRoute(
   { capability: 'schedule:write', params, body: stripUpdateSchema },
-  async ({ actor, params, body }) => updateStrip({ userId: actor.user.id, projectId: actor.projectId }, params.stripId, body),
+  async ({ actor, params, body }) =>
+    updateStrip({ userId: actor.user.id, projectId: actor.projectId }, params.stripId, body),
 );
 
 export const DELETE = projectRoute(
   { capability: 'schedule:write', params, query: versionQuery },
   async ({ actor, params, query }) => {
-    await deleteStrip({ userId: actor.user.id, projectId: actor.projectId }, params.stripId, query.version);
+    await deleteStrip(
+      { userId: actor.user.id, projectId: actor.projectId },
+      params.stripId,
+      query.version,
+    );
     return { deleted: true };
   },
 );

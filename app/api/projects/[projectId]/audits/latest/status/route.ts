@@ -1,4 +1,6 @@
 import { projectRoute } from '@/lib/auth/guard';
 import { getAuditStatus } from '@/lib/data/audits';
 
-export const GET = projectRoute({ capability: 'audit:read' }, async ({ actor }) => getAuditStatus(actor.projectId));
+export const GET = projectRoute({ capability: 'audit:read' }, async ({ actor }) =>
+  getAuditStatus(actor.projectId),
+);

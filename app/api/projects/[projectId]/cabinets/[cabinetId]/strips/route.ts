@@ -7,14 +7,24 @@ import { stripCreateSchema } from '@/lib/validation/strip';
 
 const params = z.object({ cabinetId: idParam('cabinetId') });
 
-export const GET = projectRoute({ capability: 'schedule:read', params }, async ({ actor, params }) => ({
-  items: await listStrips(actor.projectId, params.cabinetId),
-}));
+export const GET = projectRoute(
+  { capability: 'schedule:read', params },
+  async ({ actor, params }) => ({
+    items: await listStrips(actor.projectId, params.cabinetId),
+  }),
+);
 
 export const POST = projectRoute(
   { capability: 'schedule:write', params, body: stripCreateSchema },
   async ({ actor, params, body }) =>
-    NextResponse.json(await createStrip({ userId: actor.user.id, projectId: actor.projectId }, params.cabinetId, body), {
-      status: 201,
-    }),
+    NextResponse.json(
+      await createStrip(
+        { userId: actor.user.id, projectId: actor.projectId },
+        params.cabinetId,
+        body,
+      ),
+      {
+        status: 201,
+      },
+    ),
 );

@@ -5,5 +5,6 @@ import { resequenceOptionsSchema, stripIdParams } from '@/lib/validation/reseque
 /** A proposal only: nothing is written (applying is a separate, engineer-only request). */
 export const POST = projectRoute(
   { capability: 'audit:read', params: stripIdParams, body: resequenceOptionsSchema },
-  async ({ actor, params, body }) => proposeForStrip(actor.projectId, params.stripId, body.separator),
+  async ({ actor, params, body }) =>
+    proposeForStrip(actor.projectId, params.stripId, body.separator),
 );
