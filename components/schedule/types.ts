@@ -104,27 +104,8 @@ export interface ImportCommitResult {
   updated: number;
 }
 
-/** Our import/export column names (the contract's list; documented in the README). */
-export const IMPORT_COLUMNS = [
-  'strip',
-  'position',
-  'level',
-  'block',
-  'label',
-  'terminal_no',
-  'wire_no',
-  'cable',
-  'core',
-  'connector',
-  'colour',
-  'circuit_class',
-  'hazard_kind',
-  'voltage',
-  'ac_dc',
-  'frequency_hz',
-  'source_ohms',
-  'bridge',
-  'channel',
-  'notes',
-] as const;
-export type ImportColumn = (typeof IMPORT_COLUMNS)[number];
+/** Our import/export column names: the server's own list, so the two cannot drift. */
+export {
+  SCHEDULE_COLUMNS as IMPORT_COLUMNS,
+  type ScheduleColumn as ImportColumn,
+} from '@/lib/schedule-io/columns';

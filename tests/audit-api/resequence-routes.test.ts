@@ -3,9 +3,8 @@ import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { mapExposures } from '@/lib/exposure';
 import { buildProjectSnapshot } from '@/lib/data/audit-snapshot';
 import type { Models } from '@/models';
-import { DEMO_USERS, EVAPORATOR_PROJECT_CODE } from '@/seeders/demo-scenario';
-import { seedDemo } from '@/seeders/demo';
-import { freshDb, type FreshDb } from '../models/fresh-db';
+import type { FreshDb } from '../models/fresh-db';
+import { demoProject } from './demo-project';
 
 const session = vi.hoisted(() => ({ userId: null as number | null }));
 vi.mock('@/lib/auth/session', () => ({ currentUserId: async () => session.userId }));
@@ -17,15 +16,11 @@ const apply =
 let db: FreshDb;
 let m: Models;
 let projectId = 0;
-const userId: Record<string, number> = {};
+let userId: Record<string, number> = {};
 
 beforeAll(async () => {
-  db = await freshDb();
+  ({ db, projectId, userId } = await demoProject());
   m = db.models;
-  await seedDemo(db);
-  projectId = (await m.Project.findOne({ where: { code: EVAPORATOR_PROJECT_CODE } }))!.id;
-  for (const u of DEMO_USERS)
-    userId[u.demoRole] = (await m.User.findOne({ where: { email: u.email } }))!.id;
 }, 120_000);
 afterAll(async () => db.cleanup());
 

@@ -31,6 +31,37 @@ import { MECHANISM_LABEL } from '@/lib/report/vocabulary';
 
 export const metadata: Metadata = { title: 'Audit findings' };
 
+/** One labelled filter drop-down whose first choice is "All". */
+function FilterSelect({
+  label,
+  name,
+  defaultValue,
+  options,
+}: {
+  label: string;
+  name: string;
+  defaultValue: string | number;
+  options: readonly (readonly [string, string])[];
+}) {
+  return (
+    <label>
+      <span className="mb-1 block text-xs text-muted">{label}</span>
+      <select
+        name={name}
+        defaultValue={defaultValue}
+        className="h-9 rounded-sm border border-line bg-panel px-2"
+      >
+        <option value="">All</option>
+        {options.map(([value, text]) => (
+          <option key={value} value={value}>
+            {text}
+          </option>
+        ))}
+      </select>
+    </label>
+  );
+}
+
 const CASE_LABEL: Record<string, string> = {
   ac: 'AC mains',
   dc: 'DC supply',
@@ -306,81 +337,36 @@ export default async function FindingsPage({
               ))}
             </div>
           </fieldset>
-          <label>
-            <span className="mb-1 block text-xs text-muted">Cabinet</span>
-            <select
-              name="cabinet"
-              defaultValue={query.cabinetId ?? ''}
-              className="h-9 rounded-sm border border-line bg-panel px-2"
-            >
-              <option value="">All</option>
-              {cabinets.map(([id, tag]) => (
-                <option key={id} value={id}>
-                  {tag}
-                </option>
-              ))}
-            </select>
-          </label>
-          <label>
-            <span className="mb-1 block text-xs text-muted">Strip</span>
-            <select
-              name="strip"
-              defaultValue={query.stripId ?? ''}
-              className="h-9 rounded-sm border border-line bg-panel px-2"
-            >
-              <option value="">All</option>
-              {strips.map(([id, tag]) => (
-                <option key={id} value={id}>
-                  {tag}
-                </option>
-              ))}
-            </select>
-          </label>
-          <label>
-            <span className="mb-1 block text-xs text-muted">Exposure</span>
-            <select
-              name="mechanism"
-              defaultValue={query.mechanism[0] ?? ''}
-              className="h-9 rounded-sm border border-line bg-panel px-2"
-            >
-              <option value="">All</option>
-              {MECHANISM_FILTERS.map((m) => (
-                <option key={m} value={m}>
-                  {MECHANISM_LABEL[m]}
-                </option>
-              ))}
-            </select>
-          </label>
-          <label>
-            <span className="mb-1 block text-xs text-muted">Stress case</span>
-            <select
-              name="case"
-              defaultValue={query.caseKind[0] ?? ''}
-              className="h-9 rounded-sm border border-line bg-panel px-2"
-            >
-              <option value="">All</option>
-              {CASE_KINDS.map((c) => (
-                <option key={c} value={c}>
-                  {CASE_LABEL[c]}
-                </option>
-              ))}
-            </select>
-          </label>
-          <label>
-            <span className="mb-1 block text-xs text-muted">Kind</span>
-            <select
-              name="kind"
-              defaultValue={query.kind[0] ?? ''}
-              className="h-9 rounded-sm border border-line bg-panel px-2"
-            >
-              <option value="">All</option>
-              {KIND_FILTERS.map((k) => (
-                <option key={k} value={k}>
-                  {KIND_LABEL[k]}
-                </option>
-              ))}
-            </select>
-          </label>
+          <FilterSelect
+            label="Cabinet"
+            name="cabinet"
+            defaultValue={query.cabinetId ?? ''}
+            options={cabinets.map(([id, tag]) => [String(id), tag] as const)}
+          />
+          <FilterSelect
+            label="Strip"
+            name="strip"
+            defaultValue={query.stripId ?? ''}
+            options={strips.map(([id, tag]) => [String(id), tag] as const)}
+          />
+          <FilterSelect
+            label="Exposure"
+            name="mechanism"
+            defaultValue={query.mechanism[0] ?? ''}
+            options={MECHANISM_FILTERS.map((m) => [m, MECHANISM_LABEL[m]] as const)}
+          />
+          <FilterSelect
+            label="Stress case"
+            name="case"
+            defaultValue={query.caseKind[0] ?? ''}
+            options={CASE_KINDS.map((c) => [c, CASE_LABEL[c]] as const)}
+          />
+          <FilterSelect
+            label="Kind"
+            name="kind"
+            defaultValue={query.kind[0] ?? ''}
+            options={KIND_FILTERS.map((k) => [k, KIND_LABEL[k]] as const)}
+          />
           {query.sort !== 'margin' && <input type="hidden" name="sort" value={query.sort} />}
           {query.dir !== 'asc' && <input type="hidden" name="dir" value={query.dir} />}
           <div className="flex items-center gap-3">
