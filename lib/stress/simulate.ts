@@ -95,6 +95,12 @@ function esdStatic(solver: LadderSolver, recorder: Recorder, charge: number): vo
     duration += weight;
     recorder.record(0, vc, rBody, weight);
   }
+  // Integrate what the pulse adds above the idle network: ∫ (f − f_idle) dt. An element that
+  // dissipates at rest (a leaking rail diode, a shunt to a rail) would otherwise make
+  // C·dV/i grow without bound as the charge runs out, and the energy would depend on where
+  // the quadrature stops (it even went negative through the tip correction).
+  solver.solve(0, rBody);
+  recorder.record(0, 0, rBody, -duration);
   recorder.sim.duration = duration;
 }
 

@@ -34,6 +34,10 @@ function allFinite(value: unknown, path = 'result'): string | null {
  * currents, nanoamperes) is not stress: 1 µA / 1 µW / 1 nJ absolute slack, 1e-6 relative for
  * quadrature differences between the two runs.
  */
+// A fixed seed keeps CI repeatable; FC_SEED=<n> explores other random networks (do so after
+// changing the engine: that is how the idle-energy defect of the ESD quadrature was found).
+fc.configureGlobal({ seed: process.env.FC_SEED ? Number(process.env.FC_SEED) : 20261201 });
+
 function noLess(a: StressResult, b: StressResult): string | null {
   const le = (x: number, y: number, abs: number) => y >= x * (1 - 1e-6) - abs;
   if (!le(a.sourcePeakCurrent, b.sourcePeakCurrent, 1e-6))
@@ -87,6 +91,13 @@ describe('solver properties (fast-check)', () => {
         fc.double({ min: 1.05, max: 3, noNaN: true }),
         (guard, stressCase, k) => {
           const weaker = solveStress(guard, stressCase, CONDITIONS);
+          // Below a fault (under 1 mA from the source) only the rails' reverse leakage flows,
+          // out through the source, split between a pair's two diodes as the node moves: a tiny
+          // excitation can lower one diode's leakage (and the source's share of it) more than it
+          // raises the other's (seen: 514.1 µW at 0 V, 512.2 µW at 50 mV DC in one pair). That is
+          // the diode law, not a solver error, and no fault; the law under test is about faults,
+          // as in the series-resistance property below.
+          fc.pre(weaker.sourcePeakCurrent >= 1e-3);
           const stronger = solveStress(guard, scaled(stressCase, k), CONDITIONS);
           expect(noLess(weaker, stronger)).toBeNull();
         },
