@@ -53,7 +53,7 @@ export function OverviewAudit({
         href={base}
         className="rounded-sm border border-accent bg-accent px-3 py-1.5 font-medium text-accent-ink hover:brightness-110"
       >
-        {mayRun ? 'Run the audit' : 'See the findings'}
+        {mayRun ? 'Run the audit' : detail ? 'See the findings' : 'Open the audit page'}
       </Link>
     </div>
   );

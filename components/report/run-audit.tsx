@@ -17,7 +17,16 @@ type State =
   | { status: 'error'; error: string };
 
 /** "Run audit": posts, reads the NDJSON progress stream, then refreshes the page's findings. */
-export function RunAudit({ projectId, stale }: { projectId: number; stale: boolean }) {
+export function RunAudit({
+  projectId,
+  stale,
+  firstRun = false,
+}: {
+  projectId: number;
+  stale: boolean;
+  /** No run exists yet: there is no "last run" to be out of date against. */
+  firstRun?: boolean;
+}) {
   const router = useRouter();
   const [state, setState] = useState<State>({ status: 'idle' });
 
@@ -81,7 +90,7 @@ export function RunAudit({ projectId, stale }: { projectId: number; stale: boole
         <Button onClick={run} disabled={running} variant={stale ? 'primary' : 'secondary'}>
           {running ? 'Running…' : 'Run audit'}
         </Button>
-        {stale && !running && state.status !== 'done' && (
+        {stale && !firstRun && !running && state.status !== 'done' && (
           <span className="text-sm text-muted">
             The schedule or assumptions changed since the last run.
           </span>

@@ -128,7 +128,7 @@ export default async function FindingsPage({
           </p>
           {mayRun && (
             <div className="mt-4">
-              <RunAudit projectId={projectId} stale />
+              <RunAudit projectId={projectId} stale firstRun />
             </div>
           )}
         </Panel>
