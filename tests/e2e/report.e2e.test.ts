@@ -47,6 +47,8 @@ describe('risk report', () => {
     await expect(bar.getAttribute('aria-valuenow')).resolves.toBe('100');
     // The page refreshes with the run's findings, worst (smallest margin) first.
     await page.getByRole('table', { name: 'Findings' }).waitFor();
+    // The refresh into the findings layout keeps the Run button, and its message, mounted.
+    await expect(page.getByText(/Audit run #\d+ stored\./).isVisible()).resolves.toBe(true);
     await shot(page, 'report-findings-1440');
 
     const firstRow = page.locator('table[aria-label="Findings"] tbody tr').first();

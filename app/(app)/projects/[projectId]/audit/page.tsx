@@ -115,22 +115,24 @@ export default async function FindingsPage({
   const status = await getAuditStatus(projectId);
 
   if (runId === null) {
+    // Same header as below, so the Run button stays mounted (with its finished message) when
+    // the page refreshes into its findings layout after the first run.
     return (
       <div className="space-y-6">
-        <h2 className="text-xl font-semibold">Audit findings</h2>
+        <div className="flex flex-wrap items-start justify-between gap-4">
+          <div>
+            <h2 className="text-xl font-semibold">Audit findings</h2>
+          </div>
+          {mayRun && <RunAudit projectId={projectId} stale firstRun />}
+        </div>
         <Caution />
         <Panel>
           <p className="font-medium">No audit has been run on this project yet.</p>
           <p className="mt-1 text-sm text-muted">
             An audit maps every sensitive channel&apos;s exposures to hazards and solves the stress
             on its guard for each case.
-            {mayRun ? ' Run the first one here.' : ' A controls engineer runs it.'}
+            {mayRun ? ' Run the first one with the button above.' : ' A controls engineer runs it.'}
           </p>
-          {mayRun && (
-            <div className="mt-4">
-              <RunAudit projectId={projectId} stale firstRun />
-            </div>
-          )}
         </Panel>
       </div>
     );
