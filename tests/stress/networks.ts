@@ -442,3 +442,22 @@ export const CONDITIONS: StressConditions = {
   powerDerating: 0.5,
   voltageDerating: 0.8,
 };
+
+/** One 1 kΩ, 0.25 W, 200 V resistor and nothing else: the rating checks on their own. */
+export function lone1kResistor(): Guard {
+  return parseGuard({
+    stages: [
+      {
+        series: {
+          kind: 'resistor',
+          id: 'R1',
+          resistance: '1k',
+          ratedPower: '0.25W',
+          limitingVoltage: '200V',
+        },
+        shunts: [],
+      },
+    ],
+    input: { positiveRail: 24, negativeRail: 0, absMaxBeyondRail: 0.3, inputResistance: '1m' },
+  });
+}

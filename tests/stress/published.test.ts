@@ -14,7 +14,7 @@ import {
   surgeOpenCircuitVoltage,
   type Guard,
 } from '@/lib/stress';
-import { CONDITIONS } from './networks';
+import { CONDITIONS, lone1kResistor } from './networks';
 
 /** A near short: 1 mΩ to the common right at the terminal. */
 const shortCircuit: Guard = parseGuard({
@@ -147,21 +147,7 @@ describe('IEC 60115-1 style resistor power derating (REFERENCE.md "Resistors")',
     expect(resistorTemperatureFactor(170)).toBe(0);
   });
   it('the verdict uses it: 0.2 W average in a 0.25 W resistor at 100 °C fails (0.162 W allowed)', () => {
-    const guard: Guard = parseGuard({
-      stages: [
-        {
-          series: {
-            kind: 'resistor',
-            id: 'R1',
-            resistance: '1k',
-            ratedPower: '0.25W',
-            limitingVoltage: '200V',
-          },
-          shunts: [],
-        },
-      ],
-      input: { positiveRail: 24, negativeRail: 0, absMaxBeyondRail: 0.3, inputResistance: '1m' },
-    });
+    const guard: Guard = lone1kResistor();
     // 14.14 V DC across 1 kΩ: 0.2 W
     const hot = solveStress(
       guard,

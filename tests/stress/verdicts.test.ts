@@ -3,7 +3,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { mainsCase, parseGuard, solveStress, type Guard } from '@/lib/stress';
-import { CASES, CONDITIONS, NETWORKS } from './networks';
+import { CASES, CONDITIONS, NETWORKS, lone1kResistor } from './networks';
 
 describe('verdict classes', () => {
   it('holds: 28.8 V DC on the 10 kΩ / 12 V zener guard', () => {
@@ -13,21 +13,7 @@ describe('verdict classes', () => {
   });
 
   it('marginal: a resistor between its derated and its absolute rating', () => {
-    const guard: Guard = parseGuard({
-      stages: [
-        {
-          series: {
-            kind: 'resistor',
-            id: 'R1',
-            resistance: '1k',
-            ratedPower: '0.25W',
-            limitingVoltage: '200V',
-          },
-          shunts: [],
-        },
-      ],
-      input: { positiveRail: 24, negativeRail: 0, absMaxBeyondRail: 0.3, inputResistance: '1m' },
-    });
+    const guard: Guard = lone1kResistor();
     // 0.2 W in R1 at 25 °C: beyond 0.125 W derated, within 0.25 W
     const r = solveStress(
       guard,
